@@ -1,0 +1,9 @@
+// Reads the message and per-field errors our API puts in a 4xx (see server/utils/validation.ts).
+export type ApiErrorInfo = { status: number; message: string; fieldErrors: Record<string, string[]> }
+
+export function apiErrorInfo(error: unknown): ApiErrorInfo {
+  const e = error as { statusCode?: number; status?: number; data?: { message?: string; data?: { fieldErrors?: Record<string, string[]> } }; message?: string }
+  const status = e?.statusCode ?? e?.status ?? 0
+  const message = e?.data?.message ?? (status ? `Request failed (${status})` : 'The server could not be reached')
+  return { status, message, fieldErrors: e?.data?.data?.fieldErrors ?? {} }
+}

@@ -1,0 +1,20 @@
+import type { Role } from '#shared/utils/roles'
+
+export type NavItem = { to: string; label: string }
+
+// What each role's header offers. The server refuses the rest whatever the menu shows.
+const NAV: Record<Role, NavItem[]> = {
+  engineer: [{ to: '/projects', label: 'Projects' }],
+  reviewer: [{ to: '/projects', label: 'Projects' }, { to: '/review', label: 'Review queue' }],
+  auditor: [{ to: '/projects', label: 'Projects' }],
+  lead: [{ to: '/projects', label: 'Projects' }],
+  admin: [
+    { to: '/projects', label: 'Projects' },
+    { to: '/admin/users', label: 'Users' },
+    { to: '/admin/projects', label: 'Manage projects' },
+  ],
+}
+
+export function navFor(role: Role | undefined): NavItem[] {
+  return role ? NAV[role] : []
+}

@@ -1,0 +1,100 @@
+# Shared set-up steps for start.sh, test.sh and dev.sh: packages, dependencies, PostgreSQL, secrets.
+# Everything a fresh machine lacks is installed here; nothing is assumed to have been done by hand.
+set -euo pipefail
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
+cd "$ROOT"
+export NUXT_TELEMETRY_DISABLED=1
+export NUXT_TELEMETRY=0
+
+log() { printf '\033[36m[eddyledger]\033[0m %s\n' "$*"; }
+
+as_root() { if [ "$(id -u)" = 0 ]; then "$@"; else sudo "$@"; fi; }
+
+pg_bin() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1; }
+
+# ensure_apt_packages postgresql [chromium ...]: installs Debian packages that are missing.
+ensure_apt_packages() {
+  local missing=()
+  for pkg in "$@"; do
+    case "$pkg" in
+      postgresql) [ -n "$(pg_bin)" ] && [ -x "$(pg_bin)/initdb" ] || missing+=(postgresql) ;;
+      chromium) [ -x /usr/bin/chromium ] || missing+=(chromium) ;;
+      *) dpkg -s "$pkg" >/dev/null 2>&1 || missing+=("$pkg") ;;
+    esac
+  done
+  if [ ${#missing[@]} -gt 0 ]; then
+    log "installing Debian packages: ${missing[*]}"
+    as_root apt-get update -qq
+    DEBIAN_FRONTEND=noninteractive as_root apt-get install -y -qq "${missing[@]}" >/dev/null
+  fi
+}
+
+ensure_node_modules() {
+  if [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+    log "installing npm dependencies (npm ci)"
+    npm ci --no-audit --no-fund --loglevel=error
+  fi
+}
+
+# A 32+ character session password for nuxt-auth-utils, kept in a git-ignored file.
+ensure_session_password() {
+  mkdir -p .secrets
+  if [ ! -s .secrets/session-password ]; then
+    node -e "process.stdout.write(require('crypto').randomBytes(32).toString('hex'))" > .secrets/session-password
+    chmod 600 .secrets/session-password
+  fi
+  export NUXT_SESSION_PASSWORD="${NUXT_SESSION_PASSWORD:-$(cat .secrets/session-password)}"
+}
+
+# The postgres user must be able to reach the data folder; when a parent folder is closed to it,
+# fall back to a folder under /var/tmp named after this checkout.
+pg_home() {
+  local wanted="$ROOT/$1"
+  if runuser -u postgres -- test -x "$ROOT" 2>/dev/null; then echo "$wanted"; else
+    echo "/var/tmp/eddyledger-$(echo "$ROOT" | md5sum | cut -c1-10)/$1"
+  fi
+}
+
+# start_cluster DIR PORT [extra server options]: creates (once) and starts our own cluster on 127.0.0.1.
+start_cluster() {
+  local dir="$1" port="$2"; shift 2
+  local bin; bin="$(pg_bin)"
+  mkdir -p "$dir"
+  chown postgres:postgres "$dir"; chmod 700 "$dir"
+  if [ ! -f "$dir/data/PG_VERSION" ]; then
+    runuser -u postgres -- "$bin/initdb" -D "$dir/data" -U postgres --auth=trust --encoding=UTF8 --locale=C.UTF-8 >/dev/null
+  fi
+  if ! runuser -u postgres -- "$bin/pg_ctl" -D "$dir/data" status >/dev/null 2>&1; then
+    runuser -u postgres -- "$bin/pg_ctl" -D "$dir/data" -l "$dir/server.log" -w -t 30 \
+      -o "-c listen_addresses=127.0.0.1 -p $port -k $dir $*" start >/dev/null
+  fi
+}
+
+stop_cluster() {
+  local dir="$1"
+  [ -f "$dir/data/PG_VERSION" ] || return 0
+  runuser -u postgres -- "$(pg_bin)/pg_ctl" -D "$dir/data" -m fast -w stop >/dev/null 2>&1 || true
+}
+
+psql_admin() { local port="$1"; shift; "$(pg_bin)/psql" -h 127.0.0.1 -p "$port" -U postgres -v ON_ERROR_STOP=1 -qtA "$@"; }
+
+# ensure_database PORT NAME: the app's role (owner) and database.
+ensure_database() {
+  local port="$1" name="$2"
+  psql_admin "$port" -d postgres -c "DO \$\$BEGIN IF NOT EXISTS (SELECT FROM pg_roles WHERE rolname='eddyledger') THEN CREATE ROLE eddyledger LOGIN PASSWORD 'eddyledger'; END IF; END\$\$;"
+  if [ -z "$(psql_admin "$port" -d postgres -c "SELECT 1 FROM pg_database WHERE datname='$name'")" ]; then
+    psql_admin "$port" -d postgres -c "CREATE DATABASE $name OWNER eddyledger"
+  fi
+}
+
+free_port() { node -e "const s=require('net').createServer();s.listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"; }
+
+# Build when sources are newer than the last build.
+ensure_build() {
+  if [ ! -f .output/nitro.json ] || [ -n "$(find app server shared content nuxt.config.ts package-lock.json -newer .output/nitro.json -print -quit 2>/dev/null)" ]; then
+    log "building the app"
+    npx nuxt build >/tmp/eddyledger-build.log 2>&1 || { tail -n 40 /tmp/eddyledger-build.log; exit 1; }
+  fi
+}
+
+DEMO_PASSWORD_DEFAULT='ledger-demo-2026'

@@ -1,0 +1,48 @@
+#!/usr/bin/env bash
+# npm test: the same set-up as npm start on a throwaway cluster (own folder and port, removed
+# after), then unit, API (real server + PostgreSQL + fake SMTP over HTTP) and browser tests.
+#   npm test               every suite
+#   npm test -- unit       one suite (unit | api | e2e), extra arguments go to its runner:
+#   npm test -- api tests/api/auth.spec.ts
+source "$(dirname "$0")/lib/common.sh"
+
+SUITE="${1:-all}"; [ $# -gt 0 ] && shift
+ensure_apt_packages postgresql chromium
+ensure_node_modules
+
+PG_DIR="$(pg_home .pg-test)"
+PG_PORT="$(free_port)"
+stop_cluster "$PG_DIR"; rm -rf "$PG_DIR"
+pids=()
+cleanup() {
+  for p in "${pids[@]}"; do kill "$p" 2>/dev/null || true; done
+  stop_cluster "$PG_DIR"; rm -rf "$PG_DIR"
+}
+trap cleanup EXIT INT TERM
+start_cluster "$PG_DIR" "$PG_PORT" -c fsync=off -c synchronous_commit=off -c full_page_writes=off
+psql_admin "$PG_PORT" -d postgres -c "CREATE ROLE eddyledger LOGIN PASSWORD 'eddyledger' CREATEDB"
+
+export TEST_PG_ADMIN_URL="postgres://postgres@127.0.0.1:$PG_PORT/postgres"
+export TEST_PG_HOST_PORT="127.0.0.1:$PG_PORT"
+export NUXT_SESSION_PASSWORD="$(node -e "process.stdout.write(require('crypto').randomBytes(32).toString('hex'))")"
+export DEMO_PASSWORD="${DEMO_PASSWORD:-$DEMO_PASSWORD_DEFAULT}"
+
+SMTP_PORT="$(free_port)"; MAIL_WEB_PORT="$(free_port)"
+node_modules/.bin/maildev --ip 127.0.0.1 --smtp "$SMTP_PORT" --web-ip 127.0.0.1 --web "$MAIL_WEB_PORT" --silent >/tmp/eddyledger-test-maildev.log 2>&1 &
+pids+=($!)
+export TEST_SMTP_PORT="$SMTP_PORT" TEST_MAILDEV_URL="http://127.0.0.1:$MAIL_WEB_PORT"
+
+ensure_build
+
+run_unit() { log "unit tests"; npx vitest run --project unit "$@"; }
+run_api() { log "API tests (built server, PostgreSQL $PG_PORT)"; npx vitest run --project api "$@"; }
+run_e2e() { log "browser tests (chromium)"; E2E_PORT="$(free_port)" npx playwright test "$@"; }
+
+case "$SUITE" in
+  unit) run_unit "$@" ;;
+  api) run_api "$@" ;;
+  e2e) run_e2e "$@" ;;
+  all) run_unit; run_api; run_e2e ;;
+  *) echo "unknown suite: $SUITE (unit | api | e2e | all)"; exit 2 ;;
+esac
+log "all requested suites passed"

@@ -1,0 +1,130 @@
+// The tables. Types for the app are inferred from here (shared/types/db.ts); relative imports only,
+// so scripts under plain Node (tsx) can load it too.
+import { sql } from 'drizzle-orm'
+import {
+  bigserial, boolean, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
+} from 'drizzle-orm/pg-core'
+import { ROLES } from '../../shared/utils/roles'
+
+export const DECISION_STATUSES = ['draft', 'in_review', 'approved', 'overridden', 'superseded'] as const
+export const EVENT_TYPES = [
+  'created', 'revised', 'submitted', 'approved', 'overridden', 'changes_requested', 'commented', 'superseded',
+] as const
+
+export const roleEnum = pgEnum('role', ROLES)
+export const decisionStatusEnum = pgEnum('decision_status', DECISION_STATUSES)
+export const eventTypeEnum = pgEnum('decision_event_type', EVENT_TYPES)
+
+const timestamps = {
+  createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+}
+
+export const users = pgTable('users', {
+  id: serial('id').primaryKey(),
+  email: text('email').notNull(),
+  name: text('name').notNull(),
+  role: roleEnum('role').notNull(),
+  // Null until an invited user sets a password.
+  passwordHash: text('password_hash'),
+  active: boolean('active').notNull().default(true),
+  ...timestamps,
+}, t => [uniqueIndex('users_email_lower_idx').on(sql`lower(${t.email})`)])
+
+export const projects = pgTable('projects', {
+  id: serial('id').primaryKey(),
+  code: text('code').notNull().unique(),
+  name: text('name').notNull(),
+  client: text('client').notNull().default(''),
+  description: text('description').notNull().default(''),
+  archived: boolean('archived').notNull().default(false),
+  ...timestamps,
+})
+
+export const projectMembers = pgTable('project_members', {
+  projectId: integer('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  addedAt: timestamp('added_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [primaryKey({ columns: [t.projectId, t.userId] }), index('project_members_user_idx').on(t.userId)])
+
+// Failed sign-in counters, keyed by "account:<email>" or "client:<address>"; in the database so
+// the limit holds across server processes.
+export const loginAttempts = pgTable('login_attempts', {
+  key: text('key').primaryKey(),
+  failures: integer('failures').notNull().default(0),
+  windowStartedAt: timestamp('window_started_at', { withTimezone: true }).notNull().defaultNow(),
+  lockedUntil: timestamp('locked_until', { withTimezone: true }),
+})
+
+export const decisions = pgTable('decisions', {
+  id: serial('id').primaryKey(),
+  projectId: integer('project_id').notNull().references(() => projects.id),
+  title: text('title').notNull(),
+  status: decisionStatusEnum('status').notNull().default('draft'),
+  // Optimistic concurrency: every change increments it; clients send back the one they saw.
+  version: integer('version').notNull().default(1),
+  currentRevision: integer('current_revision').notNull().default(1),
+  authorId: integer('author_id').notNull().references(() => users.id),
+  // The reviewer's chosen treatment when overridden: { approach, model, wallTreatment, yPlusTarget, wall, comment, reviewer }.
+  override: jsonb('override'),
+  supersedesId: integer('supersedes_id'),
+  supersededById: integer('superseded_by_id'),
+  ...timestamps,
+}, t => [index('decisions_project_idx').on(t.projectId, t.updatedAt), index('decisions_status_idx').on(t.status)])
+
+// Append-only (trigger in a custom migration): every revision of the input and its advice.
+export const decisionRevisions = pgTable('decision_revisions', {
+  id: serial('id').primaryKey(),
+  decisionId: integer('decision_id').notNull().references(() => decisions.id),
+  revision: integer('revision').notNull(),
+  caseInput: jsonb('case_input').notNull(),
+  advice: jsonb('advice').notNull(),
+  notes: text('notes').notNull().default(''),
+  inputHash: text('input_hash').notNull(),
+  rulesetId: text('ruleset_id').notNull(),
+  rulesetVersion: text('ruleset_version').notNull(),
+  engineVersion: text('engine_version').notNull(),
+  createdBy: integer('created_by').notNull().references(() => users.id),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [uniqueIndex('decision_revisions_unique').on(t.decisionId, t.revision)])
+
+// Append-only, hash-chained per decision: hash = sha256(prevHash + canonical event).
+export const decisionEvents = pgTable('decision_events', {
+  id: bigserial('id', { mode: 'number' }).primaryKey(),
+  decisionId: integer('decision_id').notNull().references(() => decisions.id),
+  seq: integer('seq').notNull(),
+  type: eventTypeEnum('type').notNull(),
+  actorId: integer('actor_id').notNull().references(() => users.id),
+  actorRole: roleEnum('actor_role').notNull(),
+  payload: jsonb('payload').notNull().default({}),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull(),
+  prevHash: text('prev_hash').notNull(),
+  hash: text('hash').notNull(),
+}, t => [uniqueIndex('decision_events_seq_unique').on(t.decisionId, t.seq)])
+
+// Outgoing mail is written in the same transaction as the action, then delivered after commit and
+// retried on failure, so a failed send never loses the action.
+export const mailOutbox = pgTable('mail_outbox', {
+  id: serial('id').primaryKey(),
+  toAddress: text('to_address').notNull(),
+  subject: text('subject').notNull(),
+  text: text('text').notNull(),
+  kind: text('kind').notNull(),
+  status: text('status', { enum: ['pending', 'sent', 'failed'] }).notNull().default('pending'),
+  attempts: integer('attempts').notNull().default(0),
+  lastError: text('last_error'),
+  nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull().defaultNow(),
+  sentAt: timestamp('sent_at', { withTimezone: true }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [index('mail_outbox_due_idx').on(t.status, t.nextAttemptAt)])
+
+// Single-use links (invitation, password reset); only a hash of the token is stored.
+export const userTokens = pgTable('user_tokens', {
+  id: serial('id').primaryKey(),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  purpose: text('purpose', { enum: ['invite', 'reset'] }).notNull(),
+  tokenHash: text('token_hash').notNull().unique(),
+  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  usedAt: timestamp('used_at', { withTimezone: true }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+})

@@ -1,0 +1,13 @@
+// Belt and braces: every /api route needs a signed-in user except these. Each route still checks
+// role and membership itself through server/utils/auth.ts.
+const PUBLIC_API = new Set([
+  '/api/auth/login',
+  '/api/auth/password/forgot',
+  '/api/auth/password/set',
+])
+
+export default defineEventHandler(async (event) => {
+  const path = event.path.split('?')[0]!
+  if (!path.startsWith('/api/') || PUBLIC_API.has(path)) return
+  await requireUser(event)
+})

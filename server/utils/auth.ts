@@ -1,0 +1,72 @@
+import type { H3Event } from 'h3'
+import { and, eq } from 'drizzle-orm'
+import type { Role } from '#shared/utils/roles'
+import { READS_ALL_PROJECTS } from '#shared/utils/roles'
+
+export type SessionUser = { id: number; email: string; name: string; role: Role }
+
+/**
+ * The signed-in user, re-read from the database so that a role change or a deactivation takes
+ * effect on the next request, not when the cookie expires.
+ */
+export async function requireUser(event: H3Event): Promise<SessionUser> {
+  if (event.context.user) return event.context.user as SessionUser
+  const session = await getUserSession(event)
+  const id = session.user?.id
+  if (!id) throw createError({ statusCode: 401, message: 'Sign in to continue' })
+  const row = await useDb().query.users.findFirst({ where: eq(tables.users.id, id) })
+  if (!row || !row.active) {
+    await clearUserSession(event)
+    throw createError({ statusCode: 401, message: 'Your session has ended; sign in again' })
+  }
+  const user: SessionUser = { id: row.id, email: row.email, name: row.name, role: row.role }
+  const seen = session.user!
+  if (seen.role !== user.role || seen.name !== user.name || seen.email !== user.email) {
+    await setUserSession(event, { user })
+  }
+  event.context.user = user
+  return user
+}
+
+export async function requireRole(event: H3Event, ...roles: Role[]): Promise<SessionUser> {
+  const user = await requireUser(event)
+  if (!roles.includes(user.role)) {
+    throw createError({ statusCode: 403, message: `This needs the role ${roles.join(' or ')}` })
+  }
+  return user
+}
+
+export async function isProjectMember(projectId: number, userId: number): Promise<boolean> {
+  const row = await useDb().query.projectMembers.findFirst({
+    where: and(eq(tables.projectMembers.projectId, projectId), eq(tables.projectMembers.userId, userId)),
+  })
+  return Boolean(row)
+}
+
+/**
+ * Read access to a project: auditors, leads and admins read every project; engineers and
+ * reviewers only those they are members of. 404 for a project that does not exist.
+ */
+export async function requireProjectRead(event: H3Event, projectId: number) {
+  const user = await requireUser(event)
+  const project = await useDb().query.projects.findFirst({ where: eq(tables.projects.id, projectId) })
+  if (!project) throw createError({ statusCode: 404, message: `Project ${projectId} does not exist` })
+  if (!READS_ALL_PROJECTS.includes(user.role) && !(await isProjectMember(projectId, user.id))) {
+    throw createError({ statusCode: 403, message: 'You are not a member of this project' })
+  }
+  return { user, project }
+}
+
+/** Work inside a project: a member with one of the given roles. */
+export async function requireProjectMember(event: H3Event, projectId: number, roles: Role[] = ['engineer', 'reviewer']) {
+  const user = await requireUser(event)
+  const project = await useDb().query.projects.findFirst({ where: eq(tables.projects.id, projectId) })
+  if (!project) throw createError({ statusCode: 404, message: `Project ${projectId} does not exist` })
+  if (!roles.includes(user.role)) {
+    throw createError({ statusCode: 403, message: `This needs the role ${roles.join(' or ')} in the project` })
+  }
+  if (!(await isProjectMember(projectId, user.id))) {
+    throw createError({ statusCode: 403, message: 'You are not a member of this project' })
+  }
+  return { user, project }
+}

@@ -1,0 +1,38 @@
+import { asc, eq, sql } from 'drizzle-orm'
+import type { UserCreateBody, UserUpdateBody } from '#shared/schemas/users'
+
+// The public shape of a user: never the password hash.
+export const publicUserColumns = {
+  id: tables.users.id,
+  email: tables.users.email,
+  name: tables.users.name,
+  role: tables.users.role,
+  active: tables.users.active,
+  createdAt: tables.users.createdAt,
+}
+
+export function findUserByEmail(email: string) {
+  return useDb().query.users.findFirst({ where: eq(sql`lower(${tables.users.email})`, email.toLowerCase()) })
+}
+
+export function listUsers() {
+  return useDb().select(publicUserColumns).from(tables.users).orderBy(asc(tables.users.name))
+}
+
+export async function createUser(body: UserCreateBody) {
+  if (await findUserByEmail(body.email)) {
+    throw createError({ statusCode: 409, message: `A user with the e-mail ${body.email} already exists` })
+  }
+  const [user] = await useDb().insert(tables.users).values(body).returning(publicUserColumns)
+  return user!
+}
+
+export async function updateUser(id: number, body: UserUpdateBody, actorId: number) {
+  if (id === actorId && (body.active === false || (body.role && body.role !== 'admin'))) {
+    throw createError({ statusCode: 409, message: 'You cannot deactivate yourself or drop your own admin role' })
+  }
+  const [user] = await useDb().update(tables.users).set({ ...body, updatedAt: new Date() })
+    .where(eq(tables.users.id, id)).returning(publicUserColumns)
+  if (!user) throw createError({ statusCode: 404, message: `User ${id} does not exist` })
+  return user
+}

@@ -1,0 +1,22 @@
+import type { z } from 'zod'
+
+/**
+ * A validator for h3's readValidatedBody / getValidatedQuery / getValidatedRouterParams that turns a
+ * zod failure into a 400 a person can read: `message` sums it up, `data.fieldErrors` maps each
+ * field path ("fluid.density") to its messages for the form.
+ */
+export function zodValidator<T extends z.ZodTypeAny>(schema: T) {
+  return (data: unknown): z.output<T> => {
+    const result = schema.safeParse(data)
+    if (result.success) return result.data
+    const fieldErrors: Record<string, string[]> = {}
+    for (const issue of result.error.issues) {
+      const key = issue.path.join('.') || '_form'
+      ;(fieldErrors[key] ??= []).push(issue.message)
+    }
+    const message = result.error.issues
+      .map(issue => (issue.path.length ? `${issue.path.join('.')}: ` : '') + issue.message)
+      .join('; ')
+    throw { message, fieldErrors }
+  }
+}
