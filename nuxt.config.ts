@@ -1,7 +1,11 @@
 import tailwindcss from '@tailwindcss/vite'
 
+// EDDY_BUILD_SLOT gives a parallel build its own folders (several developers on one machine).
+const slot = process.env.EDDY_BUILD_SLOT
+
 export default defineNuxtConfig({
   compatibilityDate: '2025-07-15',
+  ...(slot ? { buildDir: `.nuxt-${slot}`, nitro: { output: { dir: `.output-${slot}` } } } : {}),
   devtools: { enabled: false },
   telemetry: false,
   modules: ['@pinia/nuxt', 'nuxt-auth-utils'],

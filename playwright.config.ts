@@ -6,7 +6,7 @@ const port = Number(process.env.E2E_PORT || 3999)
 
 export default defineConfig({
   testDir: 'tests/e2e',
-  outputDir: 'test-results',
+  outputDir: `test-results${process.env.EDDY_BUILD_SLOT ? `-${process.env.EDDY_BUILD_SLOT}` : ''}`,
   timeout: 60_000,
   expect: { timeout: 10_000 },
   fullyParallel: false,

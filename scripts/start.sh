@@ -38,6 +38,6 @@ ensure_build
 export NUXT_APP_URL="${NUXT_APP_URL:-http://127.0.0.1:$PORT}"
 log "Eddyledger at http://127.0.0.1:$PORT  ${MAIL_NOTE:-}"
 log "demo sign-ins (password: $DEMO_PASSWORD): engineer@ engineer2@ reviewer@ reviewer2@ auditor@ lead@ admin@ eddyledger.test"
-HOST=127.0.0.1 PORT="$PORT" node .output/server/index.mjs &
+HOST=127.0.0.1 PORT="$PORT" node "$EDDY_OUTPUT_DIR/server/index.mjs" &
 pids+=($!)
 wait "${pids[-1]}"

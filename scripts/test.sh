@@ -10,7 +10,7 @@ SUITE="${1:-all}"; [ $# -gt 0 ] && shift
 ensure_apt_packages postgresql chromium
 ensure_node_modules
 
-PG_DIR="$(pg_home .pg-test)"
+PG_DIR="$(pg_home ".pg-test$SLOT_SUFFIX")"
 PG_PORT="$(free_port)"
 stop_cluster "$PG_DIR"; rm -rf "$PG_DIR"
 pids=()

@@ -89,11 +89,15 @@ ensure_database() {
 
 free_port() { node -e "const s=require('net').createServer();s.listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"; }
 
+# EDDY_BUILD_SLOT=x keeps a parallel build and test cluster apart: .output-x, .nuxt-x, .pg-test-x.
+SLOT_SUFFIX="${EDDY_BUILD_SLOT:+-$EDDY_BUILD_SLOT}"
+export EDDY_OUTPUT_DIR=".output$SLOT_SUFFIX"
+
 # Build when sources are newer than the last build.
 ensure_build() {
-  if [ ! -f .output/nitro.json ] || [ -n "$(find app server shared content nuxt.config.ts package-lock.json -newer .output/nitro.json -print -quit 2>/dev/null)" ]; then
+  if [ ! -f "$EDDY_OUTPUT_DIR/nitro.json" ] || [ -n "$(find app server shared content nuxt.config.ts package-lock.json -newer "$EDDY_OUTPUT_DIR/nitro.json" -print -quit 2>/dev/null)" ]; then
     log "building the app"
-    npx nuxt build >/tmp/eddyledger-build.log 2>&1 || { tail -n 40 /tmp/eddyledger-build.log; exit 1; }
+    npx nuxt build >/tmp/eddyledger-build$SLOT_SUFFIX.log 2>&1 || { tail -n 40 /tmp/eddyledger-build$SLOT_SUFFIX.log; exit 1; }
   fi
 }
 

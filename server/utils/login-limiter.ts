@@ -32,6 +32,7 @@ export async function assertNotLocked(event: H3Event, keys: { account: string; c
   const minutes = Math.ceil(seconds / 60)
   throw createError({
     statusCode: 429,
+    statusMessage: 'Too Many Requests',
     message: `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
     data: { retryAfterSeconds: seconds },
   })

@@ -4,12 +4,16 @@ import { DEMO_PASSWORD } from './test-server'
 
 export type ApiResponse<T = any> = { status: number; body: T; headers: Headers }
 
+import { randomInt } from 'node:crypto'
+
+// A random block per test file, so that files never share a limiter address.
+const block = [randomInt(1, 255), randomInt(0, 255)]
 let clientCounter = 0
 
 export class ApiClient {
   cookie = ''
   // Each client is its own "address" for the login limiter (the test server trusts X-Forwarded-For).
-  readonly address = `10.77.${Math.floor(clientCounter / 250)}.${(clientCounter++ % 250) + 1}`
+  readonly address = `10.${block[0]}.${(block[1]! + Math.floor(clientCounter / 250)) % 256}.${(clientCounter++ % 250) + 1}`
 
   constructor(readonly baseUrl: string = inject('baseUrl')) {}
 

@@ -38,7 +38,7 @@ export async function freshDatabase(database: string) {
 export async function startServer(options: { database: string; port: number; env?: Record<string, string> }) {
   const url = await freshDatabase(options.database)
   const base = `http://127.0.0.1:${options.port}`
-  const child = spawn(process.execPath, ['.output/server/index.mjs'], {
+  const child = spawn(process.execPath, [`${process.env.EDDY_OUTPUT_DIR || '.output'}/server/index.mjs`], {
     stdio: ['ignore', 'inherit', 'inherit'],
     env: {
       ...process.env,
