@@ -10,6 +10,7 @@ declare module '#app' {
 
 export default defineNuxtRouteMiddleware((to) => {
   const { loggedIn, user } = useUserSession()
+  if (to.path === '/login' && loggedIn.value) return navigateTo('/projects')
   if (PUBLIC_PAGES.includes(to.path)) return
   if (!loggedIn.value) return navigateTo({ path: '/login', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
   const roles = to.meta.roles
