@@ -1,0 +1,158 @@
+import nodemailer, { type Transporter } from 'nodemailer'
+import { eq, sql } from 'drizzle-orm'
+import type { DbOrTx } from './decision-events'
+
+// Outgoing mail goes through the mail_outbox table: a row is written inside the transaction of the
+// action that causes it, and delivered after the commit by deliverDueMail (kicked by the action and
+// every few seconds by server/plugins/mail-delivery.ts). A failed send stays in the table and is
+// retried with backoff, so the action itself is never lost and admins can see what went wrong.
+
+export type MailKind = 'submitted' | 'approved' | 'overridden' | 'changes_requested' | 'invite' | 'reset'
+
+/** The closing line of every message: the same cautions every page carries. */
+export const MAIL_CAUTIONS = "Eddyledger's figures are order-of-magnitude estimates to guide a modelling decision, not results. "
+  + "Verify y+ and mesh adequacy on the real solution; defer to your organisation's procedures, the applicable "
+  + 'local codes and licensed engineering practice.'
+
+// Retry schedule: 30 s, 1 min, 2 min ... capped at an hour; after MAX_ATTEMPTS the row is 'failed'
+// until an admin retries it.
+const BASE_DELAY_SECONDS = 30
+const MAX_DELAY_SECONDS = 3600
+export const MAX_ATTEMPTS = 8
+// A claimed row is leased for this long, so a process that dies mid-send does not strand it.
+const LEASE_SECONDS = 120
+const BATCH = 20
+
+export function retryDelaySeconds(attempts: number) {
+  return Math.min(BASE_DELAY_SECONDS * 2 ** Math.max(0, attempts - 1), MAX_DELAY_SECONDS)
+}
+
+type SmtpConfig = { host: string; port: number; user: string; pass: string; from: string; secure: boolean }
+
+function smtpConfig(): SmtpConfig {
+  const c = useRuntimeConfig().smtp as Record<string, unknown>
+  return {
+    host: String(c.host || '127.0.0.1'),
+    port: Number(c.port) || 1025,
+    user: String(c.user ?? ''),
+    pass: String(c.pass ?? ''),
+    from: String(c.from || 'Eddyledger <no-reply@eddyledger.test>'),
+    secure: c.secure === true || c.secure === 'true',
+  }
+}
+
+let transporter: Transporter | undefined
+
+function useTransport(): Transporter {
+  if (!transporter) {
+    const c = smtpConfig()
+    transporter = nodemailer.createTransport({
+      host: c.host,
+      port: c.port,
+      secure: c.secure,
+      auth: c.user ? { user: c.user, pass: c.pass } : undefined,
+      // The local mail catcher speaks plain SMTP; a real relay with credentials gets STARTTLS.
+      ignoreTLS: !c.secure && !c.user,
+      connectionTimeout: 10_000,
+      greetingTimeout: 10_000,
+      socketTimeout: 20_000,
+    })
+  }
+  return transporter
+}
+
+/** Writes one message to the outbox inside the caller's transaction. */
+export async function enqueueMail(tx: DbOrTx, mail: { to: string; subject: string; text: string; kind: MailKind }) {
+  const [row] = await tx.insert(tables.mailOutbox).values({
+    toAddress: mail.to,
+    subject: mail.subject,
+    text: mail.text,
+    kind: mail.kind,
+  }).returning({ id: tables.mailOutbox.id })
+  return row!.id
+}
+
+type OutboxRow = { id: number; to_address: string; subject: string; text: string; attempts: number }
+
+// An error as it may be shown to an admin: the message only, never credentials.
+function describeError(error: unknown) {
+  const { pass, user } = smtpConfig()
+  let message = error instanceof Error ? error.message : String(error)
+  if (pass) message = message.split(pass).join('***')
+  if (user) message = message.split(user).join('***')
+  return message.slice(0, 500)
+}
+
+/**
+ * Sends the messages that are due. Rows are claimed with FOR UPDATE SKIP LOCKED and leased by moving
+ * their next attempt forward, so several server processes never send one message twice.
+ */
+export async function deliverDueMail(limit = BATCH) {
+  const db = useDb()
+  const { rows } = await db.execute<OutboxRow>(sql`
+    UPDATE mail_outbox SET next_attempt_at = now() + make_interval(secs => ${LEASE_SECONDS})
+    WHERE id IN (
+      SELECT id FROM mail_outbox
+      WHERE status = 'pending' AND next_attempt_at <= now()
+      ORDER BY next_attempt_at, id
+      LIMIT ${limit}
+      FOR UPDATE SKIP LOCKED)
+    RETURNING id, to_address, subject, text, attempts`)
+  if (!rows.length) return { sent: 0, failed: 0 }
+
+  const { from } = smtpConfig()
+  let sent = 0
+  let failed = 0
+  for (const row of rows) {
+    try {
+      await useTransport().sendMail({ from, to: row.to_address, subject: row.subject, text: row.text })
+      await db.update(tables.mailOutbox)
+        .set({ status: 'sent', sentAt: new Date(), attempts: row.attempts + 1, lastError: null })
+        .where(eq(tables.mailOutbox.id, row.id))
+      sent++
+    }
+    catch (error) {
+      const attempts = row.attempts + 1
+      await db.update(tables.mailOutbox).set({
+        attempts,
+        lastError: describeError(error),
+        status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending',
+        nextAttemptAt: new Date(Date.now() + retryDelaySeconds(attempts) * 1000),
+      }).where(eq(tables.mailOutbox.id, row.id))
+      failed++
+    }
+  }
+  return { sent, failed }
+}
+
+let running: Promise<void> | undefined
+let again = false
+
+/** True while a delivery round runs in this process. */
+export function mailDeliveryRunning() {
+  return running !== undefined
+}
+
+/**
+ * Fire-and-forget delivery after a commit. Never throws; a kick during a running round asks for one
+ * more round, so a message committed meanwhile is not left for the next timer tick.
+ */
+export function kickMailDelivery(): void {
+  if (running) {
+    again = true
+    return
+  }
+  running = (async () => {
+    do {
+      again = false
+      try {
+        const { sent, failed } = await deliverDueMail(BATCH)
+        // A full batch means more may be waiting.
+        if (sent + failed === BATCH) again = true
+      }
+      catch (error) {
+        console.error(`[mail] delivery round failed: ${describeError(error)}`)
+      }
+    } while (again)
+  })().finally(() => { running = undefined })
+}
