@@ -1,5 +1,5 @@
 import nodemailer, { type Transporter } from 'nodemailer'
-import { eq, sql } from 'drizzle-orm'
+import { and, desc, eq, sql } from 'drizzle-orm'
 import type { DbOrTx } from './decision-events'
 
 // Outgoing mail goes through the mail_outbox table: a row is written inside the transaction of the
@@ -155,4 +155,42 @@ export function kickMailDelivery(): void {
       }
     } while (again)
   })().finally(() => { running = undefined })
+}
+
+export const MAIL_PAGE_SIZE = 50
+
+/** The outbox as admins see it: newest first; addresses and subjects, not the bodies (they hold links). */
+export async function listOutbox(query: { status?: 'pending' | 'sent' | 'failed'; page: number }) {
+  const m = tables.mailOutbox
+  const where = query.status ? eq(m.status, query.status) : undefined
+  const [rows, [count]] = await Promise.all([
+    useDb().select({
+      id: m.id, toAddress: m.toAddress, subject: m.subject, kind: m.kind, status: m.status, attempts: m.attempts,
+      lastError: m.lastError, nextAttemptAt: m.nextAttemptAt, sentAt: m.sentAt, createdAt: m.createdAt,
+    }).from(m).where(where).orderBy(desc(m.createdAt), desc(m.id))
+      .limit(MAIL_PAGE_SIZE).offset((query.page - 1) * MAIL_PAGE_SIZE),
+    useDb().select({ total: sql<number>`count(*)::int` }).from(m).where(where),
+  ])
+  return { mail: rows, page: query.page, pageSize: MAIL_PAGE_SIZE, total: count?.total ?? 0 }
+}
+
+/**
+ * An admin's retry: a failed message becomes due now with a fresh set of attempts. Pending ones are
+ * left alone: they are retried on their own, and one may be in the middle of its send.
+ */
+export async function retryMail(id: number) {
+  const m = tables.mailOutbox
+  const [row] = await useDb().update(m).set({ status: 'pending', attempts: 0, nextAttemptAt: new Date() })
+    .where(and(eq(m.id, id), eq(m.status, 'failed')))
+    .returning({ id: m.id, status: m.status })
+  if (!row) {
+    const exists = await useDb().query.mailOutbox.findFirst({ where: eq(m.id, id) })
+    if (!exists) throw createError({ statusCode: 404, message: `Message ${id} does not exist` })
+    throw createError({
+      statusCode: 409,
+      message: exists.status === 'sent' ? 'This message was already sent' : 'This message is still being retried on its own',
+    })
+  }
+  kickMailDelivery()
+  return row
 }

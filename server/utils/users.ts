@@ -19,12 +19,24 @@ export function listUsers() {
   return useDb().select(publicUserColumns).from(tables.users).orderBy(asc(tables.users.name))
 }
 
-export async function createUser(body: UserCreateBody) {
+/** Creates the user and, in the same transaction, the invitation to set a password; sent after commit. */
+export async function createUser(body: UserCreateBody, invitedBy?: { name: string }) {
   if (await findUserByEmail(body.email)) {
     throw createError({ statusCode: 409, message: `A user with the e-mail ${body.email} already exists` })
   }
-  const [user] = await useDb().insert(tables.users).values(body).returning(publicUserColumns)
-  return user!
+  const user = await useDb().transaction(async (tx) => {
+    const [row] = await tx.insert(tables.users).values(body).returning(publicUserColumns)
+    await queueInvitation(tx, row!, invitedBy)
+    return row!
+  }).catch((error) => {
+    // Two admins adding the same address at once: the unique index decides.
+    if ((error as { cause?: { code?: string }; code?: string }).cause?.code === '23505' || (error as { code?: string }).code === '23505') {
+      throw createError({ statusCode: 409, message: `A user with the e-mail ${body.email} already exists` })
+    }
+    throw error
+  })
+  kickMailDelivery()
+  return user
 }
 
 export async function updateUser(id: number, body: UserUpdateBody, actorId: number) {

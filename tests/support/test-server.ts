@@ -35,8 +35,9 @@ export async function freshDatabase(database: string) {
   return databaseUrl(database)
 }
 
-export async function startServer(options: { database: string; port: number; env?: Record<string, string> }) {
-  const url = await freshDatabase(options.database)
+export async function startServer(options: { database: string; port: number; env?: Record<string, string>; keepDatabase?: boolean }) {
+  // keepDatabase: a restart on the data a previous server left behind.
+  const url = options.keepDatabase ? databaseUrl(options.database) : await freshDatabase(options.database)
   const base = `http://127.0.0.1:${options.port}`
   const child = spawn(process.execPath, [`${process.env.EDDY_OUTPUT_DIR || '.output'}/server/index.mjs`], {
     stdio: ['ignore', 'inherit', 'inherit'],

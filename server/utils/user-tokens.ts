@@ -1,0 +1,140 @@
+import { createHash, randomBytes } from 'node:crypto'
+import type { H3Event } from 'h3'
+import { and, eq, isNull, sql } from 'drizzle-orm'
+import { ROLE_LABELS } from '#shared/utils/roles'
+import type { DbOrTx } from './decision-events'
+
+// Single-use links for setting a password: an invitation (72 h) or a reset (1 h). Only the sha256 of
+// the token is stored, so a copy of the database cannot be turned into working links.
+
+export type TokenPurpose = 'invite' | 'reset'
+const LIFETIME_HOURS: Record<TokenPurpose, number> = { invite: 72, reset: 1 }
+
+export const INVALID_LINK_MESSAGE = 'This link has expired or was already used'
+export const FORGOT_PASSWORD_MESSAGE = 'If the address belongs to an active account, a link to set a new password is on its way. It works once, for 1 hour.'
+
+export function hashToken(token: string) {
+  return createHash('sha256').update(token).digest('hex')
+}
+
+export function newToken() {
+  const token = randomBytes(32).toString('base64url')
+  return { token, tokenHash: hashToken(token) }
+}
+
+function setPasswordLink(token: string) {
+  return `${String(useRuntimeConfig().appUrl).replace(/\/$/, '')}/set-password?token=${token}`
+}
+
+/** Stores a new token for the user inside the caller's transaction and returns the raw token. */
+export async function issueUserToken(tx: DbOrTx, userId: number, purpose: TokenPurpose, pre = newToken()) {
+  await tx.insert(tables.userTokens).values({
+    userId,
+    purpose,
+    tokenHash: pre.tokenHash,
+    expiresAt: new Date(Date.now() + LIFETIME_HOURS[purpose] * 3600_000),
+  })
+  return pre.token
+}
+
+/** The invitation mail for a user an admin has just created. */
+export async function queueInvitation(tx: DbOrTx, user: { id: number; email: string; name: string; role: keyof typeof ROLE_LABELS }, invitedBy?: { name: string }) {
+  const token = await issueUserToken(tx, user.id, 'invite')
+  await enqueueMail(tx, {
+    to: user.email,
+    kind: 'invite',
+    subject: 'Your Eddyledger account: set a password',
+    text: [
+      `Hello ${user.name},`,
+      '',
+      `${invitedBy?.name ?? 'An administrator'} has given you an Eddyledger account as ${ROLE_LABELS[user.role]}.`,
+      'Choose your password here (the link works once and expires in 72 hours):',
+      '',
+      setPasswordLink(token),
+      '',
+      'Then sign in with this e-mail address.',
+      '',
+      '--',
+      MAIL_CAUTIONS,
+    ].join('\n'),
+  })
+}
+
+/**
+ * A reset link for an existing, active account, or nothing at all for an unknown address. The token
+ * is generated either way, so the two cases do similar work before the answer.
+ */
+export async function requestPasswordReset(email: string) {
+  const pre = newToken()
+  const user = await findUserByEmail(email)
+  if (!user || !user.active) return false
+  await useDb().transaction(async (tx) => {
+    const token = await issueUserToken(tx, user.id, 'reset', pre)
+    await enqueueMail(tx, {
+      to: user.email,
+      kind: 'reset',
+      subject: 'Reset your Eddyledger password',
+      text: [
+        `Hello ${user.name},`,
+        '',
+        'Someone (we hope you) asked to reset the password of your Eddyledger account.',
+        'Choose a new password here (the link works once and expires in 1 hour):',
+        '',
+        setPasswordLink(token),
+        '',
+        'If it was not you, ignore this message: your password stays as it is.',
+        '',
+        '--',
+        MAIL_CAUTIONS,
+      ].join('\n'),
+    })
+  })
+  return true
+}
+
+/**
+ * Uses a token to set the password: the token is claimed atomically (single use even under
+ * concurrent requests), the password stored, and every other open link of the user voided.
+ */
+export async function setPasswordWithToken(token: string, passwordHash: string) {
+  return useDb().transaction(async (tx) => {
+    const { rows } = await tx.execute<{ id: number; user_id: number }>(sql`
+      UPDATE user_tokens SET used_at = now()
+      WHERE token_hash = ${hashToken(token)} AND used_at IS NULL AND expires_at > now()
+      RETURNING id, user_id`)
+    const claimed = rows[0]
+    if (!claimed) throw createError({ statusCode: 400, message: INVALID_LINK_MESSAGE })
+    const [user] = await tx.update(tables.users).set({ passwordHash, updatedAt: new Date() })
+      .where(and(eq(tables.users.id, claimed.user_id), eq(tables.users.active, true)))
+      .returning({ id: tables.users.id, email: tables.users.email, name: tables.users.name, role: tables.users.role })
+    // A deactivated account: the transaction rolls back and the link stays as it was.
+    if (!user) throw createError({ statusCode: 400, message: 'This account is deactivated; ask an administrator' })
+    await tx.update(tables.userTokens).set({ usedAt: new Date() })
+      .where(and(eq(tables.userTokens.userId, user.id), isNull(tables.userTokens.usedAt)))
+    return user
+  })
+}
+
+/**
+ * Reset requests count against the login limiter's table and limits under keys of their own, so a
+ * flood of requests cannot fill an inbox, and cannot lock anyone out of signing in either.
+ */
+export async function limitPasswordResetRequests(event: H3Event, email: string) {
+  const keys = loginKeys(event, email)
+  const resetKeys = { account: `reset-${keys.account}`, client: `reset-${keys.client}` }
+  try {
+    await assertNotLocked(event, resetKeys)
+  }
+  catch (error) {
+    const e = error as { statusCode?: number; data?: { retryAfterSeconds?: number } }
+    if (e.statusCode !== 429) throw error
+    const minutes = Math.ceil((e.data?.retryAfterSeconds ?? 60) / 60)
+    throw createError({
+      statusCode: 429,
+      statusMessage: 'Too Many Requests',
+      message: `Too many password reset requests. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
+      data: e.data,
+    })
+  }
+  await recordLoginFailure(resetKeys)
+}
