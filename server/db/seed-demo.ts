@@ -1,6 +1,9 @@
 // The demo scenario: Kestrel Bay Flow Consulting, a fictional CFD consultancy, and four projects of
 // its own. Relative imports only: run by scripts/seed.ts under plain Node.
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres'
+import { advise, caseInputSchema, type CaseInputDraft } from '../../shared/rules'
+import { changeDecision, insertDecision, overrideRecord, reviseDecisionRecord } from './decision-record'
+import { appendChainedEvent } from './event-chain'
 import * as schema from './schema'
 
 type Db = NodePgDatabase<typeof schema>
@@ -54,5 +57,150 @@ export async function seedDemo(db: Db, passwordHash: string) {
       projectId: project!.id, userId: userByKey.get(key)!.id,
     })))
   }
+  await seedDemoDecisions(db, userByKey)
   return { users: userByKey }
+}
+
+type DemoUser = typeof schema.users.$inferSelect
+type DemoUserKey = (typeof DEMO_USERS)[number]['key']
+
+const DAY = 24 * 3600 * 1000
+
+// Demo cases, physically sensible for each project (SI units).
+const FERRY_HULL: CaseInputDraft = {
+  regime: 'external',
+  fluid: { medium: 'water', temperatureK: 288.15 },
+  velocity: 6, // about 11.7 kn service speed
+  length: 36, // waterline length of the 38 m hull
+  geometry: 'streamlined',
+  separation: 'mild',
+  quantities: ['forces', 'pressure'],
+  budget: { coreHours: 20_000, cores: 256, wallClockHours: 72 },
+}
+
+const DATA_HALL_DUCT: CaseInputDraft = {
+  regime: 'internal',
+  fluid: { medium: 'air', temperatureK: 295, pressurePa: 101_325 },
+  velocity: 8,
+  length: 0.6, // duct diameter
+  roughness: 0.00015, // galvanised steel sheet, about 0.15 mm
+  geometry: 'duct',
+  separation: 'none',
+  physics: { heatTransfer: true },
+  quantities: ['pressure', 'heat-transfer'],
+  budget: { coreHours: 5_000, cores: 128, wallClockHours: 48 },
+}
+
+const CONDENSER_WAKE: CaseInputDraft = {
+  regime: 'external',
+  fluid: { medium: 'air', temperatureK: 288.15, pressurePa: 101_325 },
+  velocity: 10, // design wind at roof height
+  length: 2, // condenser unit height
+  turbulenceIntensity: 0.1,
+  geometry: 'bluff',
+  separation: 'massive',
+  physics: { acoustics: true },
+  quantities: ['noise', 'unsteady-loads'],
+  budget: { coreHours: 200_000, cores: 1024, wallClockHours: 168 },
+}
+
+const PUMP_INTAKE: CaseInputDraft = {
+  regime: 'internal',
+  fluid: { medium: 'water', temperatureK: 283.15 },
+  velocity: 1.2, // bell-mouth approach velocity
+  length: 1.5, // bell-mouth diameter
+  geometry: 'complex',
+  separation: 'mild',
+  physics: { rotation: true },
+  quantities: ['pressure', 'statistics'],
+  budget: { coreHours: 30_000, cores: 256, wallClockHours: 96 },
+}
+
+/**
+ * A few decisions at every stage of review, written through the same record steps as the server
+ * (advice from advise(), revisions, chained events), dated over the last fortnight.
+ */
+export async function seedDemoDecisions(db: Db, users: Map<DemoUserKey, DemoUser>) {
+  const user = (key: DemoUserKey) => users.get(key)!
+  const projects = await db.select().from(schema.projects)
+  const project = (code: string) => projects.find(p => p.code === code)!.id
+  const start = Date.now() - 14 * DAY
+  const at = (days: number) => new Date(start + days * DAY)
+
+  await db.transaction(async (tx) => {
+    // KB-101: approved after a revision.
+    const hull = await insertDecision(tx, {
+      projectId: project('KB-101'), title: 'Ferry hull calm-water resistance at service speed',
+      caseInput: { ...FERRY_HULL, separation: 'none' }, author: user('engineer'),
+      notes: 'Full-scale hull, bare, at 6 m/s.', at: at(0),
+    })
+    const revised = await reviseDecisionRecord(tx, {
+      decisionId: hull.id, version: hull.version, caseInput: FERRY_HULL, actor: user('engineer'), at: at(1),
+      notes: 'Full-scale hull, bare, at 6 m/s. Mild separation expected at the transom stern.',
+    })
+    const submitted = await changeDecision(tx, {
+      decisionId: hull.id, version: revised!.version, from: ['draft'], set: { status: 'in_review' },
+      event: { type: 'submitted', actor: user('engineer') }, at: at(1.2),
+    })
+    await changeDecision(tx, {
+      decisionId: hull.id, version: submitted!.version, from: ['in_review'], set: { status: 'approved' },
+      event: { type: 'approved', actor: user('reviewer'), payload: { comment: 'Agreed: steady RANS with wall functions is the usual choice for calm-water resistance; check y+ on the stern.' } },
+      at: at(2),
+    })
+
+    // KB-103: overridden by the second reviewer, with the author's reply.
+    const wake = await insertDecision(tx, {
+      projectId: project('KB-103'), title: 'Condenser wake and tonal noise at the east facade',
+      caseInput: CONDENSER_WAKE, author: user('engineer'), at: at(3),
+      notes: 'Two units side by side; receiver at the facade 12 m downwind.',
+    })
+    const inReview = await changeDecision(tx, {
+      decisionId: wake.id, version: wake.version, from: ['draft'], set: { status: 'in_review' },
+      event: { type: 'submitted', actor: user('engineer') }, at: at(3.5),
+    })
+    const advice = advise(CONDENSER_WAKE)
+    const recommended = advice.recommendation.approach
+    const choice = recommended === 'hybrid'
+      ? {
+          approach: 'wmles' as const, model: 'WALE', wallTreatment: 'wall-model' as const,
+          comment: 'The tonal peak comes from the shear layers off the casing edges, which the RANS region of a hybrid model would damp; wall-modelled LES keeps them resolved.',
+        }
+      : {
+          approach: 'hybrid' as const, model: 'DDES', wallTreatment: 'wall-function' as const,
+          comment: 'The noise comes from the wake, not the casing boundary layers: DDES with wall functions resolves the shedding at a fraction of the cost.',
+        }
+    const fired = advice.trace.filter(t => t.fired).map(t => t.rule)
+    const disagreedRules = fired.includes('recirculation-needs-resolved-wall') ? ['recirculation-needs-resolved-wall'] : fired.slice(0, 1)
+    const { override, payload } = overrideRecord(
+      { caseInput: caseInputSchema.parse(CONDENSER_WAKE), advice },
+      { ...choice, disagreedRules },
+      { id: user('reviewer2').id, name: user('reviewer2').name },
+    )
+    await changeDecision(tx, {
+      decisionId: wake.id, version: inReview!.version, from: ['in_review'], set: { status: 'overridden', override },
+      event: { type: 'overridden', actor: user('reviewer2'), payload }, at: at(5),
+    })
+    await appendChainedEvent(tx, {
+      decisionId: wake.id, type: 'commented', actor: user('engineer'), at: at(5.5),
+      payload: { comment: 'Understood; I will place the acoustic probes at the facade positions from the site survey.' },
+    })
+
+    // KB-102: waiting for a reviewer.
+    const duct = await insertDecision(tx, {
+      projectId: project('KB-102'), title: 'Supply duct pressure drop and wall heat transfer',
+      caseInput: DATA_HALL_DUCT, author: user('engineer2'), at: at(11),
+      notes: 'Main supply run, 0.6 m round galvanised duct.',
+    })
+    await changeDecision(tx, {
+      decisionId: duct.id, version: duct.version, from: ['draft'], set: { status: 'in_review' },
+      event: { type: 'submitted', actor: user('engineer2') }, at: at(12),
+    })
+
+    // KB-104: a draft still being worked on.
+    await insertDecision(tx, {
+      projectId: project('KB-104'), title: 'Intake bay swirl at the pump bell mouth',
+      caseInput: PUMP_INTAKE, author: user('engineer2'), at: at(13),
+      notes: 'Pump 2 of 3, low water level case.',
+    })
+  })
 }

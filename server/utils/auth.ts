@@ -2,6 +2,7 @@ import type { H3Event } from 'h3'
 import { and, eq } from 'drizzle-orm'
 import type { Role } from '#shared/utils/roles'
 import { READS_ALL_PROJECTS } from '#shared/utils/roles'
+import type { DecisionAction } from './decisions'
 
 export type SessionUser = { id: number; email: string; name: string; role: Role }
 
@@ -69,4 +70,32 @@ export async function requireProjectMember(event: H3Event, projectId: number, ro
     throw createError({ statusCode: 403, message: 'You are not a member of this project' })
   }
   return { user, project }
+}
+
+/**
+ * A project's decisions: its engineer and reviewer members, auditors and leads (not administrators,
+ * who manage accounts and projects). 404 for a project that does not exist.
+ */
+export async function requireProjectDecisions(event: H3Event, projectId: number) {
+  const user = await requireUser(event)
+  const project = await useDb().query.projects.findFirst({ where: eq(tables.projects.id, projectId) })
+  if (!project) throw createError({ statusCode: 404, message: `Project ${projectId} does not exist` })
+  const isMember = await isProjectMember(projectId, user.id)
+  const refusal = decisionReadRefusal(user, isMember)
+  if (refusal) throw createError(refusal)
+  return { user, project, isMember }
+}
+
+/**
+ * One decision, read or acted on: 404 when it does not exist, else the refusal (403 for who the
+ * user is, 409 for the decision's state) from the same rules that set the page's permissions.
+ */
+export async function requireDecisionAccess(event: H3Event, decisionId: number, action: DecisionAction | 'read' = 'read') {
+  const user = await requireUser(event)
+  const decision = await findDecision(decisionId)
+  if (!decision) throw createError({ statusCode: 404, message: `Decision ${decisionId} does not exist` })
+  const isMember = await isProjectMember(decision.projectId, user.id)
+  const refusal = action === 'read' ? decisionReadRefusal(user, isMember) : decisionRefusal(user, decision, isMember, action)
+  if (refusal) throw createError(refusal)
+  return { user, decision, isMember }
 }

@@ -1,0 +1,123 @@
+import { and, eq } from 'drizzle-orm'
+import type { Advice, CaseInput } from '#shared/rules'
+import type { OverrideBody } from '#shared/schemas/decisions'
+import { changeDecision, insertDecision, overrideRecord, type DecisionStatus } from '../db/decision-record'
+import type { SessionUser } from './auth'
+import type { DbOrTx } from './decision-events'
+import type { DecisionNoticeType } from './notices'
+
+// The review workflow's transitions. Each one is a conditional UPDATE (the version the client saw
+// and an allowed status) plus its chained event and its mail, in one transaction; the mail is
+// delivered after the commit.
+
+type Transition = {
+  decisionId: number
+  version: number
+  from: readonly DecisionStatus[]
+  doing: string
+  set: Parameters<typeof changeDecision>[1]['set']
+  type: 'submitted' | 'approved' | 'overridden' | 'changes_requested'
+  payload: Record<string, unknown>
+  comment?: string
+}
+
+async function transition(user: SessionUser, t: Transition) {
+  const decision = await useDb().transaction(async (tx) => {
+    const row = await changeDecision(tx, {
+      decisionId: t.decisionId,
+      version: t.version,
+      from: t.from,
+      set: t.set,
+      event: { type: t.type, actor: user, payload: t.payload },
+    })
+    if (!row) await throwConflict(tx, t.decisionId, t.version, t.from, t.doing)
+    await queueDecisionNotice(tx, { decisionId: t.decisionId, type: t.type satisfies DecisionNoticeType, actor: user, comment: t.comment })
+    return readDecision(t.decisionId, tx)
+  })
+  kickMailDelivery()
+  return decision
+}
+
+export function submitDecision(decisionId: number, version: number, user: SessionUser) {
+  return transition(user, {
+    decisionId, version, from: ['draft'], doing: 'submitted',
+    set: { status: 'in_review' }, type: 'submitted', payload: {},
+  })
+}
+
+export function approveDecision(decisionId: number, body: { version: number; comment?: string }, user: SessionUser) {
+  return transition(user, {
+    decisionId, version: body.version, from: ['in_review'], doing: 'approved',
+    set: { status: 'approved' }, type: 'approved',
+    payload: body.comment ? { comment: body.comment } : {}, comment: body.comment,
+  })
+}
+
+export function requestChanges(decisionId: number, body: { version: number; comment: string }, user: SessionUser) {
+  return transition(user, {
+    decisionId, version: body.version, from: ['in_review'], doing: 'sent back for changes',
+    set: { status: 'draft' }, type: 'changes_requested', payload: { comment: body.comment }, comment: body.comment,
+  })
+}
+
+async function currentRevision(db: DbOrTx, decisionId: number) {
+  const [row] = await db.select({ caseInput: tables.decisionRevisions.caseInput, advice: tables.decisionRevisions.advice, notes: tables.decisionRevisions.notes })
+    .from(tables.decisionRevisions)
+    .innerJoin(tables.decisions, and(
+      eq(tables.decisions.id, tables.decisionRevisions.decisionId),
+      eq(tables.decisions.currentRevision, tables.decisionRevisions.revision),
+    ))
+    .where(eq(tables.decisions.id, decisionId))
+  if (!row) throw createError({ statusCode: 404, message: `Decision ${decisionId} does not exist` })
+  return row as { caseInput: CaseInput; advice: Advice; notes: string }
+}
+
+/**
+ * The reviewer's own choice instead of the engine's: the near-wall figures are recomputed for the
+ * chosen treatment, and the record keeps both what the engine recommended and what was chosen.
+ */
+export async function overrideDecision(decisionId: number, body: OverrideBody, user: SessionUser) {
+  const { caseInput, advice } = await currentRevision(useDb(), decisionId)
+  const known = new Set(advice.trace.map(entry => entry.rule))
+  const unknown = body.disagreedRules.filter(rule => !known.has(rule))
+  if (unknown.length) {
+    const message = `Not rules of this advice: ${unknown.join(', ')}`
+    throw createError({ statusCode: 400, message, data: { fieldErrors: { disagreedRules: [message] } } })
+  }
+  const { override, payload } = overrideRecord({ caseInput, advice }, body, { id: user.id, name: user.name })
+  return transition(user, {
+    decisionId, version: body.version, from: ['in_review'], doing: 'overridden',
+    set: { status: 'overridden', override }, type: 'overridden',
+    payload, comment: body.comment,
+  })
+}
+
+/**
+ * A closed decision changes only through a new one: a draft copying the current input (advice
+ * recomputed by today's engine) that links back, while the old one becomes superseded.
+ */
+export async function supersedeDecision(decisionId: number, body: { version: number; title?: string }, user: SessionUser) {
+  return useDb().transaction(async (tx) => {
+    const old = await findDecision(decisionId, tx)
+    if (!old) throw createError({ statusCode: 404, message: `Decision ${decisionId} does not exist` })
+    const { caseInput, notes } = await currentRevision(tx, decisionId)
+    const created = await insertDecision(tx, {
+      projectId: old.projectId, title: body.title ?? old.title, caseInput, notes, author: user, supersedesId: old.id,
+    })
+    const row = await changeDecision(tx, {
+      decisionId, version: body.version, from: ['approved', 'overridden'],
+      set: { status: 'superseded', supersededById: created.id },
+      event: { type: 'superseded', actor: user, payload: { supersededBy: created.id } },
+    })
+    if (!row) await throwConflict(tx, decisionId, body.version, ['approved', 'overridden'], 'superseded')
+    return readDecision(created.id, tx)
+  })
+}
+
+/** A comment on the record; it changes nothing else, so the version stays. */
+export async function commentOnDecision(decisionId: number, comment: string, user: SessionUser) {
+  return useDb().transaction(async (tx) => {
+    await appendEvent(tx, { decisionId, type: 'commented', actor: user, payload: { comment } })
+    return readDecision(decisionId, tx)
+  })
+}

@@ -1,0 +1,140 @@
+// Payloads of the decision and review routes. The case itself is the engine's schema, so the
+// questionnaire, the routes and the engine check the same rules.
+import { z } from 'zod'
+import {
+  APPROACH_IDS,
+  APPROACH_LABELS,
+  MODELS_BY_APPROACH,
+  WALL_TREATMENTS,
+  WALL_TREATMENT_LABELS,
+  WALL_TREATMENTS_BY_APPROACH,
+  caseInputSchema,
+} from '../rules'
+
+// Same list as the decision_status enum in server/db/schema.ts (a unit test keeps them equal).
+export const DECISION_STATUSES = ['draft', 'in_review', 'approved', 'overridden', 'superseded'] as const
+export type DecisionStatus = (typeof DECISION_STATUSES)[number]
+
+export const DECISION_STATUS_LABELS: Record<DecisionStatus, string> = {
+  draft: 'Draft',
+  in_review: 'In review',
+  approved: 'Approved',
+  overridden: 'Overridden',
+  superseded: 'Superseded',
+}
+
+// A review comment must say why: a sentence, not a tick.
+export const MIN_REVIEW_COMMENT = 15
+const MAX_TEXT = 4000
+
+export const versionSchema = z.number({
+  required_error: 'The version you last saw is required; reload the decision.',
+  invalid_type_error: 'The version must be a number.',
+}).int('The version must be a whole number.').positive('The version must be a positive whole number.')
+
+export const decisionTitleSchema = z.string({ required_error: 'Title is required.', invalid_type_error: 'Title must be text.' })
+  .trim().min(1, 'Title is required.').max(200, 'Title is at most 200 characters.')
+
+const notesSchema = z.string({ invalid_type_error: 'Notes must be text.' })
+  .trim().max(10_000, 'Notes are at most 10,000 characters.')
+
+function commentSchema(what: string, min = 1) {
+  return z.string({ required_error: `${what} is required.`, invalid_type_error: `${what} must be text.` })
+    .trim()
+    .min(min, min > 1 ? `${what} needs at least a sentence (${min} characters or more).` : `${what} is required.`)
+    .max(MAX_TEXT, `${what} is at most ${MAX_TEXT} characters.`)
+}
+
+export const adviceRequestSchema = z.object({ caseInput: caseInputSchema }, { required_error: 'A case input is required.' })
+
+export const decisionCreateSchema = z.object({
+  title: decisionTitleSchema,
+  caseInput: caseInputSchema,
+  notes: notesSchema.optional(),
+})
+export type DecisionCreateBody = z.infer<typeof decisionCreateSchema>
+
+export const decisionReviseSchema = z.object({
+  caseInput: caseInputSchema,
+  notes: notesSchema.optional(),
+  title: decisionTitleSchema.optional(),
+  version: versionSchema,
+})
+export type DecisionReviseBody = z.infer<typeof decisionReviseSchema>
+
+export const decisionListQuerySchema = z.object({
+  status: z.enum(DECISION_STATUSES, {
+    errorMap: () => ({ message: `Status must be one of: ${DECISION_STATUSES.join(', ')}.` }),
+  }).optional(),
+  page: z.coerce.number({ invalid_type_error: 'Page must be a number.' }).int('Page must be a whole number.')
+    .min(1, 'Page starts at 1.').default(1),
+  pageSize: z.coerce.number({ invalid_type_error: 'Page size must be a number.' }).int('Page size must be a whole number.')
+    .min(1, 'Page size is at least 1.').max(100, 'Page size is at most 100.').default(20),
+})
+export type DecisionListQuery = z.infer<typeof decisionListQuerySchema>
+
+export const revisionParamsSchema = z.object({
+  id: z.coerce.number({ invalid_type_error: 'The id must be a number' }).int().positive('The id must be a positive whole number'),
+  n: z.coerce.number({ invalid_type_error: 'The revision must be a number' }).int().positive('The revision must be a positive whole number'),
+})
+
+export const submitSchema = z.object({ version: versionSchema })
+
+export const approveSchema = z.object({
+  version: versionSchema,
+  comment: commentSchema('The comment').optional(),
+})
+
+const overrideChoice = z.object({
+  approach: z.enum(APPROACH_IDS, {
+    errorMap: () => ({ message: `Choose an approach: ${APPROACH_IDS.map(id => APPROACH_LABELS[id]).join(', ')}.` }),
+  }),
+  model: z.string({ required_error: 'Choose a model.', invalid_type_error: 'The model must be text.' }).trim().min(1, 'Choose a model.'),
+  wallTreatment: z.enum(WALL_TREATMENTS, {
+    errorMap: () => ({ message: `Choose a wall treatment: ${WALL_TREATMENTS.map(t => WALL_TREATMENT_LABELS[t]).join(', ')}.` }),
+  }),
+  yPlusTarget: z.number({ invalid_type_error: 'Target y+ must be a number.' })
+    .positive('Target y+ must be greater than zero.').max(1000, 'Target y+ must be at most 1000.').optional(),
+  comment: commentSchema('The reason for the override', MIN_REVIEW_COMMENT),
+  disagreedRules: z.array(
+    z.string({ invalid_type_error: 'Each rule must be given by its id.' }).trim().min(1, 'A rule id cannot be empty.'),
+    { invalid_type_error: 'The rules disagreed with must be a list of rule ids.' },
+  ).max(100, 'At most 100 rules.').default([]),
+})
+
+// The chosen model and wall treatment must belong to the chosen approach.
+function checkOverrideChoice(value: z.infer<typeof overrideChoice>, ctx: z.RefinementCtx) {
+  const models = MODELS_BY_APPROACH[value.approach]
+  if (!models.includes(value.model)) {
+    ctx.addIssue({
+      code: z.ZodIssueCode.custom,
+      path: ['model'],
+      message: `${APPROACH_LABELS[value.approach]} uses one of: ${models.join(', ')}.`,
+    })
+  }
+  const treatments = WALL_TREATMENTS_BY_APPROACH[value.approach]
+  if (!treatments.includes(value.wallTreatment)) {
+    ctx.addIssue({
+      code: z.ZodIssueCode.custom,
+      path: ['wallTreatment'],
+      message: `${APPROACH_LABELS[value.approach]} goes with: ${treatments.map(t => WALL_TREATMENT_LABELS[t]).join(', ')}.`,
+    })
+  }
+}
+
+/** The override form's fields (the page adds the version it loaded). */
+export const overrideFormSchema = overrideChoice.superRefine(checkOverrideChoice)
+export const overrideSchema = overrideChoice.extend({ version: versionSchema }).superRefine(checkOverrideChoice)
+export type OverrideBody = z.infer<typeof overrideSchema>
+
+export const requestChangesSchema = z.object({
+  version: versionSchema,
+  comment: commentSchema('The request for changes', MIN_REVIEW_COMMENT),
+})
+
+export const supersedeSchema = z.object({
+  version: versionSchema,
+  title: decisionTitleSchema.optional(),
+})
+
+export const decisionCommentSchema = z.object({ comment: commentSchema('The comment') })
