@@ -1,0 +1,85 @@
+/**
+ * Runs the rules of one stage over the facts with json-logic and reports, per rule, whether it
+ * fired and what it applies. The caller (advise.ts) merges the outcomes into scores, models,
+ * wall treatments and cautions.
+ */
+import jsonLogic, { type RulesLogic } from 'json-logic-js'
+import type { ApproachId, WallTreatment } from './approaches'
+import type { Facts } from './facts'
+import type { Rule, Ruleset } from './ruleset-schema'
+
+export interface AppliedEffects {
+  readonly scores?: Readonly<Partial<Record<ApproachId, number>>>
+  readonly models?: Readonly<Partial<Record<ApproachId, string>>>
+  readonly wallTreatment?: Readonly<Partial<Record<ApproachId, WallTreatment>>>
+  readonly cautions?: readonly string[]
+}
+
+export interface RuleOutcome {
+  rule: Rule
+  fired: boolean
+  /**
+   * For a fired rule, what it applied; for one that did not fire, what it would have applied on
+   * these facts. Frozen and possibly shared between calls when the rule comes from the frozen RULESET.
+   */
+  effects: AppliedEffects
+}
+
+/** Truthiness as json-logic defines it (an empty array is false). */
+export function conditionHolds(when: unknown, facts: Facts): boolean {
+  return jsonLogic.truthy(jsonLogic.apply(when as RulesLogic, facts))
+}
+
+function scoreChange(rule: Rule, approach: ApproachId, change: unknown, facts: Facts): number {
+  const value = typeof change === 'number' ? change : jsonLogic.apply(change as RulesLogic, facts)
+  if (typeof value !== 'number' || !Number.isFinite(value)) {
+    throw new Error(`Rule "${rule.id}" gave a score change for ${approach} that is not a finite number.`)
+  }
+  return value
+}
+
+/** Effects of rules whose score changes are all constants: the same on any facts, computed once and frozen. */
+const constantEffects = new WeakMap<Rule, AppliedEffects>()
+
+function hasComputedScores(rule: Rule): boolean {
+  for (const approach in rule.effects.scores) {
+    if (typeof rule.effects.scores[approach as ApproachId] !== 'number') return true
+  }
+  return false
+}
+
+function appliedEffects(rule: Rule, facts: Facts): AppliedEffects {
+  const declared = rule.effects
+  const effects: { -readonly [K in keyof AppliedEffects]: AppliedEffects[K] } = {}
+  if (declared.scores) {
+    const scores: Partial<Record<ApproachId, number>> = {}
+    for (const approach in declared.scores) {
+      const change = declared.scores[approach as ApproachId]
+      if (change !== undefined) scores[approach as ApproachId] = scoreChange(rule, approach as ApproachId, change, facts)
+    }
+    effects.scores = scores
+  }
+  if (declared.models) effects.models = declared.models
+  if (declared.wallTreatment) effects.wallTreatment = declared.wallTreatment
+  if (declared.cautions) effects.cautions = declared.cautions
+  return Object.isFrozen(rule) ? Object.freeze(effects) : effects
+}
+
+export function evaluateRule(rule: Rule, facts: Facts): RuleOutcome {
+  const fired = conditionHolds(rule.when, facts)
+  let effects = constantEffects.get(rule)
+  if (!effects) {
+    effects = appliedEffects(rule, facts)
+    if (Object.isFrozen(rule) && !hasComputedScores(rule)) constantEffects.set(rule, effects)
+  }
+  return { rule, fired, effects }
+}
+
+/** Outcomes of every rule of a stage, in ruleset order. */
+export function evaluateStage(ruleset: Ruleset, stage: Rule['stage'], facts: Facts): RuleOutcome[] {
+  const outcomes: RuleOutcome[] = []
+  for (const rule of ruleset.rules) {
+    if (rule.stage === stage) outcomes.push(evaluateRule(rule, facts))
+  }
+  return outcomes
+}
