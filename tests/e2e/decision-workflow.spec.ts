@@ -1,0 +1,122 @@
+import { expect, test, type Page } from '@playwright/test'
+import { advise } from '../../shared/rules'
+import { toSI } from '../../shared/units'
+import { formatSci } from '../../app/utils/format'
+import { keepScreenshot, signInAs } from '../support/e2e'
+
+// Our own scenario: the Kestrel Bay ferry hull (KB-101) at a second service speed, typed in
+// imperial units as the client's drawings give them.
+const CASE = { temperatureF: 59, velocityFtS: 24, lengthFt: 98 }
+
+async function fillQuantity(page: Page, field: string, value: number) {
+  const input = page.locator(`#field-${field}`)
+  await input.fill(String(value))
+  await input.blur()
+}
+
+test('an engineer describes a case in imperial units, previews the advice, saves it and finds the same figures on the decision page', async ({ page }) => {
+  await signInAs(page, 'engineer')
+  await page.getByTestId('projects-table').getByRole('link', { name: 'Harbour ferry hull resistance' }).click()
+  await expect(page.getByTestId('decisions-table')).toContainText('Ferry hull calm-water resistance')
+  await page.getByTestId('new-case').click()
+  await expect(page.getByRole('heading', { name: 'New case' })).toBeVisible()
+
+  // Nothing typed yet: the live panel says what is missing.
+  await expect(page.getByTestId('live-incomplete')).toContainText('Velocity is required.')
+
+  await page.getByTestId('unit-system').getByRole('radio', { name: 'Imperial units' }).click()
+  // 20 °C shown as 68 °F (NIST SP 811 B.9) and the units switched.
+  await expect(page.locator('#field-fluid-temperature')).toHaveValue('68')
+  await expect(page.getByTestId('field-fluid-temperature-unit')).toHaveValue('degF')
+  await expect(page.getByTestId('field-velocity-unit')).toHaveValue('ft/s')
+
+  await page.getByRole('radio', { name: 'Water' }).check()
+  await fillQuantity(page, 'fluid-temperature', CASE.temperatureF)
+  await fillQuantity(page, 'velocity', CASE.velocityFtS)
+  await fillQuantity(page, 'length', CASE.lengthFt)
+  await page.getByLabel('Expected separation').selectOption('mild')
+  await page.getByRole('checkbox', { name: 'Surface pressure' }).check()
+
+  // The browser's engine, for the same input in SI, is the reference for every figure below.
+  const expected = advise({
+    regime: 'external',
+    fluid: { medium: 'water', temperatureK: toSI('temperature', CASE.temperatureF, 'degF') },
+    velocity: toSI('velocity', CASE.velocityFtS, 'ft/s'),
+    length: toSI('length', CASE.lengthFt, 'ft'),
+    geometry: 'streamlined',
+    separation: 'mild',
+    quantities: ['forces', 'pressure'],
+    budget: { coreHours: 20000, cores: 256, wallClockHours: 72 },
+  })
+  const reynolds = formatSci(expected.reynolds)
+
+  await expect(page.getByTestId('live-reynolds')).toHaveText(reynolds)
+  await expect(page.getByTestId('live-mach')).toHaveText('n/a') // a liquid: no Mach number here
+  await expect(page.getByTestId('live-approach')).not.toBeEmpty()
+  await keepScreenshot(page, 'questionnaire')
+
+  await page.getByTestId('get-advice').click()
+  const preview = page.getByTestId('advice-preview')
+  await expect(preview.getByTestId('advice-reynolds')).toHaveText(reynolds)
+  await expect(preview.getByTestId('approach-table').locator('tbody tr')).toHaveCount(6)
+  await expect(preview.getByTestId('advice-cautions')).toContainText('order-of-magnitude')
+  await expect(preview.getByTestId('advice-cautions')).toContainText('licensed engineering practice')
+  await expect(preview.getByTestId('cost-chart').locator('canvas')).toBeVisible()
+  await expect(preview.getByTestId('mesh-first-cell-height')).toContainText('in') // imperial: inches
+  const firstCellHeight = await preview.getByTestId('mesh-first-cell-height').textContent()
+  const approach = await preview.getByTestId('advice-approach').textContent()
+  const coreHours = await preview.getByTestId('advice-core-hours').textContent()
+
+  // Sorting by core-hours: a number column sorts largest first (DNS, the costliest), then cheapest first.
+  const table = preview.getByTestId('approach-table')
+  await table.getByTestId('sort-coreHours').click()
+  await expect(table.locator('th[aria-sort="descending"]')).toHaveCount(1)
+  await expect(table.locator('tbody tr').first()).toHaveAttribute('data-testid', 'approach-row-dns')
+  await table.getByTestId('sort-coreHours').press('Enter')
+  await expect(table.locator('th[aria-sort="ascending"]')).toHaveCount(1)
+  await expect(table.locator('tbody tr').last()).toHaveAttribute('data-testid', 'approach-row-dns')
+  const ascending = [...expected.approaches].sort((a, b) => a.coreHours - b.coreHours)
+  await expect(table.locator('tbody tr').first()).toHaveAttribute('data-testid', `approach-row-${ascending[0]!.id}`)
+  // Infeasible rows say why.
+  if (expected.approaches.some((a) => !a.feasible)) await expect(table.getByTestId('infeasible-why').first()).toContainText('Needs')
+  await keepScreenshot(page, 'advice-view')
+
+  await page.getByTestId('decision-title').fill('Ferry hull at 24 ft/s, mild stern separation')
+  await page.getByTestId('decision-notes').fill('Second service speed from the client brief.')
+  await page.getByTestId('save-draft').click()
+  await expect(page).toHaveURL(/\/decisions\/\d+$/)
+
+  await expect(page.getByTestId('decision-title')).toHaveText('Ferry hull at 24 ft/s, mild stern separation')
+  await expect(page.getByTestId('status-draft')).toBeVisible()
+  await expect(page.getByTestId('advice-reynolds')).toHaveText(reynolds)
+  await expect(page.getByTestId('advice-approach')).toHaveText(approach!)
+  await expect(page.getByTestId('advice-core-hours')).toHaveText(coreHours!)
+  // The unit system is the engineer's preference, kept in the browser: still inches here.
+  await expect(page.getByTestId('mesh-first-cell-height')).toHaveText(firstCellHeight!)
+  await expect(page.getByTestId('chain-check')).toHaveText('History verified (1 event)')
+  await expect(page.getByTestId('decision-timeline')).toContainText('Created by Ada Ferreira')
+  await expect(page.getByTestId('decision-revisions')).toContainText('Revision 1')
+  await expect(page.getByTestId('revise-link')).toBeVisible()
+  await keepScreenshot(page, 'decision-page')
+
+  await page.getByRole('link', { name: /KB-101/ }).click()
+  const row = page.getByTestId('decisions-table').locator('tr', { hasText: 'Ferry hull at 24 ft/s' })
+  await expect(row).toContainText('Draft')
+  await expect(row).toContainText('Ada Ferreira')
+  await expect(row).toContainText(reynolds)
+})
+
+test('the questionnaire shows the engine\'s message at the field and refuses to save', async ({ page }) => {
+  await signInAs(page, 'engineer')
+  await page.getByTestId('projects-table').getByRole('link', { name: 'Harbour ferry hull resistance' }).click()
+  await page.getByTestId('new-case').click()
+  await page.getByRole('radio', { name: 'Other fluid' }).check()
+  await fillQuantity(page, 'velocity', 5)
+  await fillQuantity(page, 'length', 2)
+  await page.getByTestId('decision-title').fill('Incomplete case')
+  await page.getByTestId('save-draft').click()
+  await expect(page.getByTestId('field-fluid-density')).toContainText('Density is required for a custom fluid.')
+  await expect(page.getByTestId('field-fluid-viscosity')).toContainText('Dynamic viscosity is required for a custom fluid.')
+  await expect(page.getByTestId('form-message')).toBeVisible()
+  await expect(page).toHaveURL(/\/decisions\/new$/)
+})
