@@ -1,0 +1,124 @@
+// The decision history is append-only at the database and tamper-evident through its hash chain.
+// The database is reached directly, as its owner, only to try what the application never does.
+import { createHash } from 'node:crypto'
+import canonicalize from 'canonicalize'
+import pg from 'pg'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { ApiClient, signIn } from '../support/api-client'
+import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds } from '../support/decisions'
+
+type ApiEvent = {
+  id: number; seq: number; type: string; actor: { id: number; name: string }; actorRole: string
+  payload: unknown; createdAt: string; hash: string; prevHash: string
+}
+
+// The chain as the contract defines it, recomputed here without the server's code:
+// hash = sha256(prevHash + RFC 8785 canonical JSON of the event), the first link on 64 zeros.
+const GENESIS = '0'.repeat(64)
+function expectedHash(prevHash: string, decisionId: number, e: ApiEvent) {
+  const canonical = canonicalize({
+    decisionId, seq: e.seq, type: e.type, actorId: e.actor.id, actorRole: e.actorRole, payload: e.payload,
+    createdAt: new Date(e.createdAt).toISOString(),
+  })!
+  return createHash('sha256').update(prevHash + canonical).digest('hex')
+}
+
+let engineer: ApiClient
+let reviewer: ApiClient
+let auditor: ApiClient
+let project: Record<string, number>
+let owner: pg.Client
+let decisionId: number
+let untouchedId: number
+
+beforeAll(async () => {
+  ;[engineer, reviewer, auditor] = await Promise.all(['engineer', 'reviewer', 'auditor'].map(signIn))
+  project = await projectIds(auditor)
+  owner = new pg.Client({ connectionString: inject('databaseUrl') })
+  await owner.connect()
+
+  // A decision with a few events: created, revised, submitted, commented, approved.
+  const draft = await createDraft(engineer, project['KB-102']!)
+  const revised = (await engineer.put(`/api/decisions/${draft.id}`, { caseInput: { ...DUCT_CASE, velocity: 9 }, version: draft.version })).body.decision
+  const submitted = await act(engineer, `/api/decisions/${draft.id}/submit`, { version: revised.version })
+  await act(reviewer, `/api/decisions/${draft.id}/comments`, { comment: 'Which inlet profile did you assume?' })
+  await act(reviewer, `/api/decisions/${draft.id}/approve`, { version: submitted.version, comment: 'Fine for the pressure-drop estimate.' })
+  decisionId = draft.id
+  untouchedId = (await createDraft(engineer, project['KB-103']!, { caseInput: CONDENSER_CASE })).id
+})
+
+afterAll(async () => {
+  await owner?.end()
+})
+
+describe('the hash chain', () => {
+  it('links every event to the one before, with hashes anyone can recompute', async () => {
+    const { events } = (await auditor.get(`/api/decisions/${decisionId}/events`)).body as { events: ApiEvent[] }
+    expect(events.map(e => e.type)).toEqual(['created', 'revised', 'submitted', 'commented', 'approved'])
+    expect(events.map(e => e.seq)).toEqual([1, 2, 3, 4, 5])
+    let prev = GENESIS
+    for (const event of events) {
+      expect(event.prevHash).toBe(prev)
+      expect(event.hash).toBe(expectedHash(prev, decisionId, event))
+      prev = event.hash
+    }
+    expect(events[3]).toMatchObject({ actorRole: 'reviewer', actor: { name: 'Priya Raman' }, payload: { comment: 'Which inlet profile did you assume?' } })
+  })
+
+  it('verifies as intact', async () => {
+    const res = await auditor.get(`/api/decisions/${decisionId}/verify`)
+    expect(res.status).toBe(200)
+    expect(res.body).toEqual({ valid: true, checked: 5, brokenAt: null })
+  })
+
+  it('verifies the demo decisions the seed wrote', async () => {
+    let checked = 0
+    for (const code of ['KB-101', 'KB-102', 'KB-103', 'KB-104']) {
+      const { decisions } = (await auditor.get(`/api/projects/${project[code]}/decisions?pageSize=100`)).body
+      for (const d of decisions as { id: number }[]) {
+        const res = (await auditor.get(`/api/decisions/${d.id}/verify`)).body
+        expect(res, `decision ${d.id}`).toMatchObject({ valid: true, brokenAt: null })
+        checked++
+      }
+    }
+    expect(checked).toBeGreaterThanOrEqual(4)
+  })
+})
+
+describe('append-only at the database', () => {
+  for (const table of ['decision_events', 'decision_revisions']) {
+    it(`refuses UPDATE, DELETE and TRUNCATE on ${table}, even to the database owner`, async () => {
+      await expect(owner.query(`UPDATE ${table} SET created_at = now() WHERE decision_id = $1`, [decisionId]))
+        .rejects.toThrow(/append-only: UPDATE refused/)
+      await expect(owner.query(`DELETE FROM ${table} WHERE decision_id = $1`, [decisionId]))
+        .rejects.toThrow(/append-only: DELETE refused/)
+      await expect(owner.query(`TRUNCATE ${table} CASCADE`)).rejects.toThrow(/append-only: TRUNCATE refused/)
+      const { rows } = await owner.query(`SELECT count(*)::int AS n FROM ${table} WHERE decision_id = $1`, [decisionId])
+      expect(rows[0].n).toBe(table === 'decision_events' ? 5 : 2)
+    })
+  }
+})
+
+describe('tampering', () => {
+  it('makes /verify report the first altered event, and leaves other decisions valid', async () => {
+    const { rows } = await owner.query('SELECT id FROM decision_events WHERE decision_id = $1 AND seq = 4', [decisionId])
+    const tamperedId = Number(rows[0].id)
+    // Only by switching the trigger off, as the owner, can a row be changed at all.
+    await owner.query('BEGIN')
+    try {
+      await owner.query('ALTER TABLE decision_events DISABLE TRIGGER decision_events_append_only')
+      await owner.query(`UPDATE decision_events SET payload = '{"comment":"Looks fine."}' WHERE id = $1`, [tamperedId])
+      await owner.query('ALTER TABLE decision_events ENABLE TRIGGER decision_events_append_only')
+      await owner.query('COMMIT')
+    } catch (error) {
+      await owner.query('ROLLBACK')
+      throw error
+    }
+    const res = await auditor.get(`/api/decisions/${decisionId}/verify`)
+    expect(res.status).toBe(200)
+    expect(res.body).toEqual({ valid: false, checked: 4, brokenAt: tamperedId })
+    expect((await auditor.get(`/api/decisions/${untouchedId}/verify`)).body).toEqual({ valid: true, checked: 1, brokenAt: null })
+    // The trigger is back on.
+    await expect(owner.query('DELETE FROM decision_events WHERE id = $1', [tamperedId])).rejects.toThrow(/append-only/)
+  })
+})
