@@ -12,6 +12,7 @@ const NAV: Record<Role, NavItem[]> = {
     { to: '/projects', label: 'Projects' },
     { to: '/admin/users', label: 'Users' },
     { to: '/admin/projects', label: 'Manage projects' },
+    { to: '/admin/mail', label: 'Mail' },
   ],
 }
 

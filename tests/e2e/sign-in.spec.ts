@@ -6,7 +6,7 @@ const NAV: Record<string, string[]> = {
   reviewer: ['Projects', 'Review queue'],
   auditor: ['Projects'],
   lead: ['Projects'],
-  admin: ['Projects', 'Users', 'Manage projects'],
+  admin: ['Projects', 'Users', 'Manage projects', 'Mail'],
 }
 const ROLE_LABEL: Record<string, string> = {
   engineer: 'Engineer', reviewer: 'Senior reviewer', auditor: 'QA auditor', lead: 'Team lead', admin: 'Administrator',
