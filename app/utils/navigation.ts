@@ -16,6 +16,9 @@ const NAV: Record<Role, NavItem[]> = {
   ],
 }
 
+// Every role reads the guidance articles.
+const GUIDANCE_ITEM: NavItem = { to: '/guidance', label: 'Guidance' }
+
 export function navFor(role: Role | undefined): NavItem[] {
-  return role ? NAV[role] : []
+  return role ? [...NAV[role], GUIDANCE_ITEM] : []
 }

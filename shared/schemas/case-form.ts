@@ -124,7 +124,9 @@ function optional(value: number | undefined): number | undefined {
  * roughness only for internal flow.
  */
 export function toCaseInputDraft(values: CaseFormValues): CaseInputDraft {
-  const { fluid } = values
+  // Missing groups become empty ones, so the engine names each missing field.
+  const fluid = values.fluid ?? ({} as CaseFormValues['fluid'])
+  const budget = values.budget ?? ({} as CaseFormValues['budget'])
   const draft: Record<string, unknown> = {
     regime: values.regime,
     fluid: {
@@ -138,11 +140,11 @@ export function toCaseInputDraft(values: CaseFormValues): CaseInputDraft {
     geometry: values.geometry,
     separation: values.separation,
     physics: { ...values.physics },
-    quantities: [...values.quantities],
+    quantities: [...(values.quantities ?? [])],
     budget: {
-      coreHours: optional(values.budget.coreHours),
-      cores: optional(values.budget.cores),
-      wallClockHours: optional(values.budget.wallClockHours),
+      coreHours: optional(budget.coreHours),
+      cores: optional(budget.cores),
+      wallClockHours: optional(budget.wallClockHours),
     },
   }
   if (values.regime === 'internal') draft.roughness = si('roughness', values.roughness)

@@ -15,6 +15,11 @@ async function fillQuantity(page: Page, field: string, value: number) {
 }
 
 test('an engineer describes a case in imperial units, previews the advice, saves it and finds the same figures on the decision page', async ({ page }) => {
+  const browserErrors: string[] = []
+  page.on('pageerror', (error) => browserErrors.push(`${error.message} ${error.stack?.split('\n').slice(1, 3).join(' ')}`))
+  page.on('console', (message) => {
+    if (message.type() === 'error') browserErrors.push(message.text())
+  })
   await signInAs(page, 'engineer')
   await page.getByTestId('projects-table').getByRole('link', { name: 'Harbour ferry hull resistance' }).click()
   await expect(page.getByTestId('decisions-table')).toContainText('Ferry hull calm-water resistance')
@@ -104,6 +109,7 @@ test('an engineer describes a case in imperial units, previews the advice, saves
   await expect(row).toContainText('Draft')
   await expect(row).toContainText('Ada Ferreira')
   await expect(row).toContainText(reynolds)
+  expect(browserErrors).toEqual([])
 })
 
 test('the questionnaire shows the engine\'s message at the field and refuses to save', async ({ page }) => {
@@ -119,4 +125,66 @@ test('the questionnaire shows the engine\'s message at the field and refuses to 
   await expect(page.getByTestId('field-fluid-viscosity')).toContainText('Dynamic viscosity is required for a custom fluid.')
   await expect(page.getByTestId('form-message')).toBeVisible()
   await expect(page).toHaveURL(/\/decisions\/new$/)
+  // Back to air: the fields the other fluid hid kept their values.
+  await page.getByRole('radio', { name: 'Air' }).check()
+  await expect(page.locator('#field-fluid-pressure')).toHaveValue('101.325')
+  await expect(page.locator('#field-fluid-temperature')).toHaveValue('20')
+})
+
+test('the author revises a draft; a second tab with the old version gets a clear conflict message', async ({ page, context }) => {
+  await signInAs(page, 'engineer')
+  await page.getByTestId('projects-table').getByRole('link', { name: 'Harbour ferry hull resistance' }).click()
+  await page.getByTestId('new-case').click()
+  await page.getByTestId('unit-system').getByRole('radio', { name: 'SI units' }).click()
+  await fillQuantity(page, 'velocity', 7)
+  await fillQuantity(page, 'length', 30)
+  await page.getByTestId('decision-title').fill('Ferry hull, harbour manoeuvring speed')
+  await page.getByTestId('save-draft').click()
+  await expect(page).toHaveURL(/\/decisions\/\d+$/)
+  const decisionUrl = page.url()
+  const reynoldsBefore = await page.getByTestId('advice-reynolds').textContent()
+
+  const other = await context.newPage()
+  await other.goto(`${decisionUrl}/edit`)
+  await expect(other.locator('#field-velocity')).toHaveValue('7')
+
+  await page.getByTestId('revise-link').click()
+  await expect(page.locator('#field-length')).toHaveValue('30')
+  await fillQuantity(page, 'velocity', 14)
+  await page.getByTestId('save-revision').click()
+  await expect(page).toHaveURL(decisionUrl)
+  await expect(page.getByTestId('decision-revisions')).toContainText('Revision 2')
+  await expect(page.getByTestId('decision-timeline')).toContainText('Revised by Ada Ferreira')
+  // Twice the velocity, twice the Reynolds number (Re = U L / nu).
+  await expect(page.getByTestId('advice-reynolds')).not.toHaveText(reynoldsBefore!)
+  await expect(page.getByTestId('chain-check')).toHaveText('History verified (2 events)')
+
+  // Revision 1 stays readable with its own figures.
+  await page.getByRole('link', { name: 'Revision 1' }).click()
+  await expect(page.getByTestId('advice-reynolds')).toHaveText(reynoldsBefore!)
+  await expect(page.getByTestId('revision-provenance')).toContainText('ruleset eddyledger-core')
+
+  // The second tab still holds version 1.
+  await fillQuantity(other, 'velocity', 9)
+  await other.getByTestId('save-revision').click()
+  await expect(other.getByTestId('form-message')).toContainText('changed this decision after you opened it')
+  await expect(other.locator('#field-velocity')).toHaveValue('9')
+  await expect(other).toHaveURL(/\/edit$/)
+})
+
+test('the guidance articles: one per approach and wall treatment, each with cautions and sources', async ({ page }) => {
+  await signInAs(page, 'auditor')
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Guidance' }).click()
+  await expect(page.getByTestId('guidance-approaches').getByRole('link')).toHaveCount(6)
+  await expect(page.getByTestId('guidance-walls').getByRole('link')).toHaveCount(3)
+  for (const slug of ['dns', 'wrles', 'wmles', 'hybrid', 'urans', 'rans', 'resolved', 'wall-function', 'wall-model']) {
+    await page.goto(`/guidance/${slug}`)
+    const article = page.getByTestId('guidance-article')
+    await expect(article.getByRole('heading', { name: 'Cautions' })).toBeVisible()
+    await expect(article.getByRole('heading', { name: 'Sources' })).toBeVisible()
+    await expect(article).toContainText('licensed engineering practice')
+  }
+  await keepScreenshot(page, 'guidance-article')
+  const missing = await page.goto('/guidance/no-such-article')
+  expect(missing?.status()).toBe(404)
 })

@@ -32,7 +32,7 @@ for (const role of Object.keys(NAV)) {
     await signInAs(page, role)
     await expect(page.getByTestId('signed-in-user')).toContainText(ROLE_LABEL[role]!)
     const nav = page.getByRole('navigation', { name: 'Main' })
-    await expect(nav.getByRole('link')).toHaveText(NAV[role]!)
+    await expect(nav.getByRole('link')).toHaveText([...NAV[role]!, 'Guidance'])
     await expect(page.getByTestId('general-cautions')).toContainText(/order-of-magnitude/)
     if (role === 'engineer') {
       await expect(page.getByTestId('projects-table')).toContainText('KB-101')
