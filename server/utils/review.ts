@@ -100,6 +100,8 @@ export async function supersedeDecision(decisionId: number, body: { version: num
   return useDb().transaction(async (tx) => {
     const old = await findDecision(decisionId, tx)
     if (!old) throw createError({ statusCode: 404, message: `Decision ${decisionId} does not exist` })
+    const project = await tx.query.projects.findFirst({ where: eq(tables.projects.id, old.projectId) })
+    if (project?.archived) throw createError({ statusCode: 409, message: `Project ${project.code} is archived; it takes no new decisions` })
     const { caseInput, notes } = await currentRevision(tx, decisionId)
     const created = await insertDecision(tx, {
       projectId: old.projectId, title: body.title ?? old.title, caseInput, notes, author: user, supersedesId: old.id,
