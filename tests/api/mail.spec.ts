@@ -1,7 +1,6 @@
 // Mail end to end: the real server writes the outbox, sends over SMTP to the local mail catcher
 // (maildev, started by scripts/test.sh), and we read the catcher's inbox over its REST API.
 import { createHash } from 'node:crypto'
-import { existsSync } from 'node:fs'
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient, demoEmail, signIn } from '../support/api-client'
@@ -273,10 +272,7 @@ describe('when the SMTP server is unreachable', () => {
   }, 90_000)
 })
 
-// The review notices need the decision routes; they run once those exist.
-const reviewRoutes = existsSync(new URL('../../server/api/decisions/[id]/submit.post.ts', import.meta.url))
-
-describe.runIf(reviewRoutes)('review notices', () => {
+describe('review notices', () => {
   const CASE = {
     // Our own demo case (KB-101): a 38 m ferry hull in water at 6.2 m/s.
     regime: 'external',
@@ -321,6 +317,13 @@ describe.runIf(reviewRoutes)('review notices', () => {
     await new Promise(r => setTimeout(r, 500))
     expect((await inbox()).filter(m => m.subject.includes(one.title)).length).toBe(1)
     expect(single!.to.map(t => t.address)).toEqual([demoEmail('reviewer')])
+
+    // A reviewer's own decision: the other reviewers are told, not the author.
+    const own = await submitted('KB-102', 'reviewer')
+    const [toOther] = await waitForMail(m => m.subject.includes(own.title))
+    await new Promise(r => setTimeout(r, 500))
+    expect((await inbox()).filter(m => m.subject.includes(own.title)).length).toBe(1)
+    expect(toOther!.to.map(t => t.address)).toEqual([demoEmail('reviewer2')])
   })
 
   it('tells the author of an approval, an override and a request for changes, with the comment', async () => {
