@@ -58,10 +58,16 @@ export function formatDuration(hours: number | null | undefined): string {
   return formatQuantity(hours, 'h')
 }
 
-/** A timestamp in the reader's locale, to the minute. */
+/**
+ * A timestamp to the minute, in UTC: the same on the server and in every browser (no hydration
+ * mismatch), and unambiguous in an audit trail.
+ */
 export function formatDateTime(iso: string | Date | null | undefined): string {
   if (!iso) return '—'
   const date = typeof iso === 'string' ? new Date(iso) : iso
   if (Number.isNaN(date.getTime())) return '—'
-  return date.toLocaleString('en-GB', { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' })
+  const text = date.toLocaleString('en-GB', {
+    year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit', timeZone: 'UTC',
+  })
+  return `${text} UTC`
 }

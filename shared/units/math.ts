@@ -4,7 +4,8 @@
  */
 import { create, createUnitDependencies, unitDependencies } from 'mathjs'
 
-export const math = create({ unitDependencies, createUnitDependencies })
+// The typings mark each dependency bundle as possibly undefined; both ship with mathjs 15.
+export const math = create({ unitDependencies: unitDependencies!, createUnitDependencies: createUnitDependencies! })
 
 // International nautical mile, 1852 m exactly (NIST SP 811, 2008, appendix B.8).
 math.createUnit('nauticalMile', { definition: '1852 m' })

@@ -103,12 +103,21 @@ test('an engineer describes a case in imperial units, previews the advice, saves
   await expect(page.getByTestId('decision-revisions')).toContainText('Revision 1')
   await expect(page.getByTestId('revise-link')).toBeVisible()
   await keepScreenshot(page, 'decision-page')
+  // After a reload the stored preference still shows the mesh in inches.
+  await page.reload()
+  await expect(page.getByTestId('mesh-first-cell-height')).toHaveText(firstCellHeight!)
 
   await page.getByRole('link', { name: /KB-101/ }).click()
   const row = page.getByTestId('decisions-table').locator('tr', { hasText: 'Ferry hull at 24 ft/s' })
   await expect(row).toContainText('Draft')
   await expect(row).toContainText('Ada Ferreira')
   await expect(row).toContainText(reynolds)
+  await keepScreenshot(page, 'project-decisions')
+
+  // The status filter: the demo's approved decision stays, the new draft goes.
+  await page.getByTestId('decision-status-filter').selectOption('approved')
+  await expect(page.getByTestId('decisions-table')).toContainText('Ferry hull calm-water resistance')
+  await expect(page.getByTestId('decisions-table')).not.toContainText('Ferry hull at 24 ft/s')
   expect(browserErrors).toEqual([])
 })
 

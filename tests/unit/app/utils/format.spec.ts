@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { formatDuration, formatPercent, formatQuantity, formatSci, formatSig } from '../../../../app/utils/format'
+import { formatDateTime, formatDuration, formatPercent, formatQuantity, formatSci, formatSig } from '../../../../app/utils/format'
 
 // Presentation rules of our own (common practice, no source): three significant figures,
 // scientific notation for the very large and very small, units beside every value.
@@ -40,5 +40,13 @@ describe('formatQuantity and friends', () => {
     expect(formatPercent(0.01)).toBe('1\u202f%')
     expect(formatDuration(9.7526)).toBe('9.75\u202fh')
     expect(formatDuration(1935.8)).toBe('80.7\u202fd')
+  })
+})
+
+describe('formatDateTime', () => {
+  it('writes UTC to the minute whatever the machine zone', () => {
+    expect(formatDateTime('2026-12-01T22:38:12Z')).toBe('1 Dec 2026, 22:38 UTC')
+    expect(formatDateTime(null)).toBe('—')
+    expect(formatDateTime('not a date')).toBe('—')
   })
 })
