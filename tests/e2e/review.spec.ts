@@ -88,6 +88,16 @@ test('an engineer submits, a reviewer overrides from the queue, and the engineer
   await expect(page.getByRole('button', { name: 'Approve' })).toHaveCount(0)
   await expect(page.getByRole('button', { name: /Supersede/ })).toBeVisible()
   await keepScreenshot(page, 'decision-overridden')
+
+  // A change now means a new decision that links back; the old one shows superseded.
+  await page.getByRole('button', { name: /Supersede/ }).click()
+  await page.getByRole('button', { name: 'Create the new draft' }).click()
+  await expect(page).not.toHaveURL(new RegExp(`/decisions/${decisionId}$`))
+  await expect(page.getByTestId('status-draft')).toBeVisible()
+  await expect(page.getByRole('link', { name: `decision ${decisionId}` })).toBeVisible()
+  await page.getByRole('link', { name: `decision ${decisionId}` }).click()
+  await expect(page.getByTestId('status-superseded')).toBeVisible()
+  await expect(page.getByRole('button', { name: /Supersede/ })).toHaveCount(0)
 })
 
 test('a reviewer who acts on a decision someone else already closed is told to reload', async ({ page, request }) => {
