@@ -1,4 +1,5 @@
 import { defineStore } from 'pinia'
+import { ref } from 'vue'
 import { UNIT_SYSTEMS, defaultUnit, type QuantityKind, type UnitSystem } from '#shared/units'
 
 const STORAGE_KEY = 'eddyledger.unitSystem'

@@ -66,6 +66,7 @@ test('an engineer describes a case in imperial units, previews the advice, saves
   await expect(preview.getByTestId('approach-table').locator('tbody tr')).toHaveCount(6)
   await expect(preview.getByTestId('advice-cautions')).toContainText('order-of-magnitude')
   await expect(preview.getByTestId('advice-cautions')).toContainText('licensed engineering practice')
+  for (const caution of expected.cautions) await expect(preview.getByTestId('advice-cautions')).toContainText(caution)
   await expect(preview.getByTestId('cost-chart').locator('canvas')).toBeVisible()
   await expect(preview.getByTestId('mesh-first-cell-height')).toContainText('in') // imperial: inches
   const firstCellHeight = await preview.getByTestId('mesh-first-cell-height').textContent()
