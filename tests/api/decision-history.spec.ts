@@ -112,7 +112,13 @@ describe('append-only at the database', () => {
 
 describe('tampering', () => {
   it('makes /verify report the first altered event, and leaves other decisions valid', async () => {
-    const { rows } = await owner.query('SELECT id FROM decision_events WHERE decision_id = $1 AND seq = 4', [decisionId])
+    // A decision of its own, so the other tests' decision stays intact whatever the order.
+    const draft = await createDraft(engineer, project['KB-102']!)
+    const submitted = await act(engineer, `/api/decisions/${draft.id}/submit`, { version: draft.version })
+    await act(reviewer, `/api/decisions/${draft.id}/comments`, { comment: 'Which inlet profile did you assume?' })
+    await act(reviewer, `/api/decisions/${draft.id}/approve`, { version: submitted.version })
+    const tampered = draft.id
+    const { rows } = await owner.query('SELECT id FROM decision_events WHERE decision_id = $1 AND seq = 3', [tampered])
     const tamperedId = Number(rows[0].id)
     // Only by switching the trigger off, as the owner, can a row be changed at all.
     await owner.query('BEGIN')
@@ -125,9 +131,9 @@ describe('tampering', () => {
       await owner.query('ROLLBACK')
       throw error
     }
-    const res = await auditor.get(`/api/decisions/${decisionId}/verify`)
+    const res = await auditor.get(`/api/decisions/${tampered}/verify`)
     expect(res.status).toBe(200)
-    expect(res.body).toEqual({ valid: false, checked: 4, brokenAt: tamperedId })
+    expect(res.body).toEqual({ valid: false, checked: 3, brokenAt: tamperedId })
     expect((await auditor.get(`/api/decisions/${untouchedId}/verify`)).body).toEqual({ valid: true, checked: 1, brokenAt: null })
     // The trigger is back on.
     await expect(owner.query('DELETE FROM decision_events WHERE id = $1', [tamperedId])).rejects.toThrow(/append-only/)

@@ -17,6 +17,8 @@ let project: Record<string, number>
 let engineerProject: number
 let reviewerProject: number
 let owner: pg.Client
+// Memberships this file adds, removed after it so other files see the demo memberships only.
+const added: [projectId: number, userId: number][] = []
 
 const OVERRIDE = { approach: 'urans', model: 'k-omega SST', wallTreatment: 'wall-function', comment: 'Unsteady RANS is enough for the pressure drop we report.' }
 
@@ -28,7 +30,10 @@ beforeAll(async () => {
   const makeProject = async (name: string, members: string[]) => {
     const created = await c.admin.post('/api/projects', { code: `RV-${Math.floor(Math.random() * 1e6)}`, name })
     expect(created.status).toBe(201)
-    for (const key of members) expect((await c.admin.post(`/api/projects/${created.body.project.id}/members`, { userId: userId(key) })).status).toBe(201)
+    for (const key of members) {
+      expect((await c.admin.post(`/api/projects/${created.body.project.id}/members`, { userId: userId(key) })).status).toBe(201)
+      added.push([created.body.project.id, userId(key)])
+    }
     return created.body.project.id as number
   }
   engineerProject = await makeProject('Review matrix: engineer-authored', ['engineer', 'engineer2', 'reviewer'])
@@ -38,6 +43,7 @@ beforeAll(async () => {
 })
 
 afterAll(async () => {
+  for (const [projectId, userId] of added) expect((await c.admin.delete(`/api/projects/${projectId}/members/${userId}`)).status).toBe(200)
   await owner?.end()
 })
 
