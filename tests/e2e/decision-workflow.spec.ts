@@ -123,9 +123,17 @@ test('an engineer describes a case in imperial units, previews the advice, saves
 })
 
 test('the questionnaire shows the engine\'s message at the field and refuses to save', async ({ page }) => {
+  const browserErrors: string[] = []
+  page.on('pageerror', (error) => browserErrors.push(error.message))
+  page.on('console', (message) => {
+    if (message.type() === 'error') browserErrors.push(message.text())
+  })
   await signInAs(page, 'engineer')
   await page.getByTestId('projects-table').getByRole('link', { name: 'Harbour ferry hull resistance' }).click()
   await page.getByTestId('new-case').click()
+  // Rendered on the server too: a reload hydrates without a mismatch.
+  await page.reload()
+  await expect(page.getByTestId('live-incomplete')).toBeVisible()
   await page.getByRole('radio', { name: 'Other fluid' }).check()
   await fillQuantity(page, 'velocity', 5)
   await fillQuantity(page, 'length', 2)
@@ -135,10 +143,12 @@ test('the questionnaire shows the engine\'s message at the field and refuses to 
   await expect(page.getByTestId('field-fluid-viscosity')).toContainText('Dynamic viscosity is required for a custom fluid.')
   await expect(page.getByTestId('form-message')).toBeVisible()
   await expect(page).toHaveURL(/\/decisions\/new$/)
+  await keepScreenshot(page, 'questionnaire-errors')
   // Back to air: the fields the other fluid hid kept their values.
   await page.getByRole('radio', { name: 'Air' }).check()
   await expect(page.locator('#field-fluid-pressure')).toHaveValue('101.325')
   await expect(page.locator('#field-fluid-temperature')).toHaveValue('20')
+  expect(browserErrors).toEqual([])
 })
 
 test('the author revises a draft; a second tab with the old version gets a clear conflict message', async ({ page, context }) => {
