@@ -272,6 +272,50 @@ describe('when the SMTP server is unreachable', () => {
   }, 90_000)
 })
 
+describe('two server processes on one database', () => {
+  const servers: Awaited<ReturnType<typeof startServer>>[] = []
+  afterAll(async () => { await Promise.all(servers.map(s => s.stop())) })
+
+  it('send each queued message exactly once', async () => {
+    const database = 'eddyledger_mail_pair'
+    servers.push(await startServer({ database, port: await freePort() }))
+    servers.push(await startServer({ database, port: await freePort(), keepDatabase: true }))
+    const batch = unique()
+    const count = 60
+    // Due messages written straight into the outbox, plus one failed message per server whose
+    // retry makes both servers start a delivery round at the same moment.
+    const failedIds = await withDb(servers[0]!.databaseUrl, async (db) => {
+      await db.query(`
+        INSERT INTO mail_outbox (to_address, subject, text, kind)
+        SELECT 'pair.' || n || '@eddyledger.test', $1 || ' #' || n, 'Delivery check.', 'invite'
+        FROM generate_series(1, ${count}) n`, [`Pair ${batch}`])
+      const { rows } = await db.query(`
+        INSERT INTO mail_outbox (to_address, subject, text, kind, status, attempts)
+        VALUES ('pair.a@eddyledger.test', $1, 'Retry check.', 'invite', 'failed', 8),
+               ('pair.b@eddyledger.test', $2, 'Retry check.', 'invite', 'failed', 8)
+        RETURNING id`, [`Pair ${batch} retry a`, `Pair ${batch} retry b`])
+      return rows.map(r => r.id as number)
+    })
+    const admins = await Promise.all(servers.map(async (s) => {
+      const c = new ApiClient(s.url)
+      await c.login(demoEmail('admin'))
+      return c
+    }))
+    const retries = await Promise.all(admins.map((c, i) => c.post(`/api/admin/mail/${failedIds[i]}/retry`)))
+    expect(retries.map(r => r.status)).toEqual([200, 200])
+
+    const mails = await waitForMail(m => m.subject.startsWith(`Pair ${batch}`), { count: count + 2, timeout: 25_000 })
+    await new Promise(r => setTimeout(r, 1500))
+    const subjects = (await inbox()).filter(m => m.subject.startsWith(`Pair ${batch}`)).map(m => m.subject)
+    expect(mails.length).toBeGreaterThanOrEqual(count + 2)
+    expect(subjects.length).toBe(count + 2)
+    expect(new Set(subjects).size).toBe(count + 2)
+    const states = await withDb(servers[0]!.databaseUrl, db => db.query(
+      `SELECT status, attempts, count(*)::int AS n FROM mail_outbox WHERE subject LIKE $1 GROUP BY 1, 2`, [`Pair ${batch}%`]))
+    expect(states.rows).toEqual([{ status: 'sent', attempts: 1, n: count + 2 }])
+  }, 90_000)
+})
+
 describe('review notices', () => {
   const CASE = {
     // Our own demo case (KB-101): a 38 m ferry hull in water at 6.2 m/s.
