@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { keepScreenshot, signInAs, signOut } from '../support/e2e'
+import { gotoHydrated, keepScreenshot, signInAs, signOut } from '../support/e2e'
 
 // The invitation and reset e-mails go to the local mail catcher that scripts/test.sh starts.
 const MAILDEV = process.env.TEST_MAILDEV_URL
@@ -44,7 +44,7 @@ test('an invited user sets a password from the e-mail link, once; the admin sees
 
   const invitation = await mailTo(email, /set a password/i)
   const link = linkIn(invitation.text)
-  await page.goto(link)
+  await gotoHydrated(page, link)
   await expect(page.getByRole('heading', { name: 'Set your password' })).toBeVisible()
   await page.getByLabel('New password').fill('harbour-ferry-2026')
   await page.getByLabel('Repeat the password').fill('harbour-ferry-2025')
@@ -58,14 +58,14 @@ test('an invited user sets a password from the e-mail link, once; the admin sees
   await signOut(page)
 
   // The same link a second time.
-  await page.goto(link)
+  await gotoHydrated(page, link)
   await page.getByLabel('New password').fill('another-password-1')
   await page.getByLabel('Repeat the password').fill('another-password-1')
   await page.getByRole('button', { name: 'Set password and sign in' }).click()
   await expect(page.getByRole('alert')).toContainText('This link has expired or was already used')
 
   // And the password chosen the first time works at the sign-in form.
-  await page.goto('/login')
+  await gotoHydrated(page, '/login')
   await page.getByLabel('E-mail').fill(email)
   await page.getByLabel('Password').fill('harbour-ferry-2026')
   await page.getByRole('button', { name: 'Sign in' }).click()
@@ -74,7 +74,7 @@ test('an invited user sets a password from the e-mail link, once; the admin sees
 
 test('a forgotten password: the same answer for any address, and a reset link for a real one', async ({ page }) => {
   test.skip(!MAILDEV, 'needs the mail catcher of npm test')
-  await page.goto('/login')
+  await gotoHydrated(page, '/login')
   await page.getByRole('link', { name: 'Forgot password?' }).click()
   await expect(page).toHaveURL(/\/forgot-password$/)
   await page.getByLabel('E-mail').fill('not-an-address')
@@ -88,7 +88,7 @@ test('a forgotten password: the same answer for any address, and a reset link fo
   const knownText = await answer.textContent()
   await keepScreenshot(page, 'forgot-password')
 
-  await page.goto('/forgot-password')
+  await gotoHydrated(page, '/forgot-password')
   await page.getByLabel('E-mail').fill(`nobody.${Date.now()}@eddyledger.test`)
   await page.getByRole('button', { name: 'Send the link' }).click()
   await expect(page.getByRole('status').filter({ hasText: /if the address belongs/i })).toHaveText(knownText!)

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test'
-import { keepScreenshot, signInAs, signOut } from '../support/e2e'
+import { gotoHydrated, keepScreenshot, signInAs, signOut } from '../support/e2e'
 import { DEMO_PASSWORD } from '../support/test-server'
 
 // Our own demo case (KB-101): a 38 m ferry hull in water at 6.2 m/s.
@@ -26,7 +26,7 @@ test('an engineer submits, a reviewer overrides from the queue, and the engineer
   expect(created.status()).toBe(201)
   const decisionId = (await created.json()).decision.id as number
 
-  await page.goto(`/decisions/${decisionId}`)
+  await gotoHydrated(page, `/decisions/${decisionId}`)
   await expect(page.getByTestId('decision-title')).toHaveText(title)
   await expect(page.getByTestId('status-draft')).toBeVisible()
   await page.getByTestId('submit-for-review').click()
@@ -69,7 +69,7 @@ test('an engineer submits, a reviewer overrides from the queue, and the engineer
 
   // The engineer sees the reviewer's choice beside the engine's, and the reason on the timeline.
   await signInAs(page, 'engineer')
-  await page.goto(`/projects/${kb101.id}`)
+  await gotoHydrated(page, `/projects/${kb101.id}`)
   await page.getByRole('link', { name: title }).click()
   await expect(page.getByTestId('status-overridden')).toBeVisible()
   const block = page.getByTestId('override-block')
@@ -115,7 +115,7 @@ test('a reviewer who acts on a decision someone else already closed is told to r
 
   // Two reviewers have the same decision open; the other one approves first.
   await signInAs(page, 'reviewer')
-  await page.goto(`/decisions/${created.decision.id}`)
+  await gotoHydrated(page, `/decisions/${created.decision.id}`)
   await expect(page.getByTestId('status-in_review')).toBeVisible()
   // Meanwhile the other reviewer of the project approves it from their own session.
   expect((await request.post('/api/auth/login', { data: { email: 'reviewer2@eddyledger.test', password: DEMO_PASSWORD } })).status()).toBe(200)
@@ -127,4 +127,31 @@ test('a reviewer who acts on a decision someone else already closed is told to r
   await page.getByRole('button', { name: 'Reload the decision' }).click()
   await expect(page.getByTestId('status-approved')).toBeVisible()
   await expect(page.getByRole('button', { name: 'Approve' })).toHaveCount(0)
+})
+
+test('a reviewer sends a decision back with a reason; it is a draft again with the reason on the record', async ({ page }) => {
+  const title = `Condenser wake ${Date.now().toString(36)}`
+  await signInAs(page, 'engineer')
+  const projects = (await (await page.request.get('/api/projects')).json()).projects as { id: number; code: string }[]
+  const kb103 = projects.find(p => p.code === 'KB-103')!
+  const created = await (await page.request.post(`/api/projects/${kb103.id}/decisions`, {
+    data: { title, caseInput: { ...FERRY_CASE, fluid: { medium: 'air' }, geometry: 'bluff', separation: 'massive', velocity: 5, length: 2.4 } },
+  })).json()
+  expect((await page.request.post(`/api/decisions/${created.decision.id}/submit`, { data: { version: created.decision.version } })).status()).toBe(200)
+  await signOut(page)
+
+  await signInAs(page, 'reviewer')
+  await gotoHydrated(page, `/decisions/${created.decision.id}`)
+  const comment = page.getByLabel(/Comment \(optional to approve/)
+  await comment.fill('Why?')
+  await page.getByRole('button', { name: 'Request changes' }).click()
+  await expect(page.getByTestId('review-actions')).toContainText(/at least a sentence/)
+  await expect(page.getByTestId('status-in_review')).toBeVisible()
+  await comment.fill('Give the fin spacing of the condenser units; it sets the wake scale.')
+  await page.getByRole('button', { name: 'Request changes' }).click()
+  await expect(page.getByTestId('status-draft')).toBeVisible()
+  await expect(page.getByRole('button', { name: 'Approve' })).toHaveCount(0)
+  const event = page.getByTestId('decision-timeline').getByTestId('event-changes_requested')
+  await expect(event).toContainText('Priya Raman')
+  await expect(event).toContainText('Give the fin spacing of the condenser units; it sets the wake scale.')
 })
