@@ -91,6 +91,7 @@ test('an engineer describes a case in imperial units, previews the advice, saves
   await page.getByTestId('decision-notes').fill('Second service speed from the client brief.')
   await page.getByTestId('save-draft').click()
   await expect(page).toHaveURL(/\/decisions\/\d+$/)
+  const decisionId = Number(new URL(page.url()).pathname.split('/').pop())
 
   await expect(page.getByTestId('decision-title')).toHaveText('Ferry hull at 24 ft/s, mild stern separation')
   await expect(page.getByTestId('status-draft')).toBeVisible()
@@ -109,7 +110,8 @@ test('an engineer describes a case in imperial units, previews the advice, saves
   await expect(page.getByTestId('mesh-first-cell-height')).toHaveText(firstCellHeight!)
 
   await page.getByRole('link', { name: /KB-101/ }).click()
-  const row = page.getByTestId('decisions-table').locator('tr', { hasText: 'Ferry hull at 24 ft/s' })
+  const row = page.getByTestId(`decision-row-${decisionId}`)
+  await expect(row).toContainText('Ferry hull at 24 ft/s')
   await expect(row).toContainText('Draft')
   await expect(row).toContainText('Ada Ferreira')
   await expect(row).toContainText(reynolds)
@@ -131,6 +133,7 @@ test('the questionnaire shows the engine\'s message at the field and refuses to 
   await signInAs(page, 'engineer')
   await page.getByTestId('projects-table').getByRole('link', { name: 'Harbour ferry hull resistance' }).click()
   await page.getByTestId('new-case').click()
+  await expect(page).toHaveURL(/\/decisions\/new$/)
   // Rendered on the server too: a reload hydrates without a mismatch.
   await page.reload()
   await expect(page.getByTestId('live-incomplete')).toBeVisible()
