@@ -218,12 +218,22 @@ test('the guidance articles: one per approach and wall treatment, each with caut
   expect(missing?.status()).toBe(404)
 })
 
-test("an overridden decision shows the reviewer's choice and its near-wall mesh", async ({ page }) => {
-  await signInAs(page, 'engineer')
+test("QA reads an overridden decision: the reviewer's choice, its near-wall mesh, the verified history, no edit controls", async ({ page }) => {
+  await signInAs(page, 'auditor')
   await page.getByTestId('projects-table').getByRole('link', { name: 'Rooftop condenser wake and noise' }).click()
+  await expect(page.getByTestId('decisions-table')).toBeVisible()
+  await expect(page.getByTestId('new-case')).toHaveCount(0)
   await page.getByTestId('decisions-table').getByRole('link', { name: 'Condenser wake and tonal noise at the east facade' }).click()
   await expect(page.getByTestId('status-overridden')).toBeVisible()
   await expect(page.getByTestId('advice-override')).toContainText('Overridden by')
   await expect(page.getByTestId('mesh-overridden')).toBeVisible()
-  await expect(page.getByTestId('chain-check')).toContainText('History verified')
+  await expect(page.getByTestId('chain-check')).toContainText('History verified (4 events)')
+  await expect(page.getByTestId('decision-timeline')).toContainText('Commented by Ada Ferreira')
+  await expect(page.getByTestId('revise-link')).toHaveCount(0)
+
+  // The advice links each method to its guidance article.
+  const wallTreatment = await page.getByTestId('advice-wall-treatment').textContent()
+  await page.getByTestId('advice-wall-treatment').click()
+  await expect(page.getByTestId('guidance-article')).toBeVisible()
+  await expect(page.getByTestId('guidance-article').getByRole('heading', { level: 1 })).toContainText(wallTreatment!.split(' (')[0]!)
 })
