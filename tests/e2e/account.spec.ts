@@ -40,6 +40,11 @@ test('an invited user sets a password from the e-mail link, once; the admin sees
   }).toPass({ timeout: 15_000 })
   await expect(row).toContainText('Invitation')
   await keepScreenshot(page, 'admin-mail')
+  const consoleErrors: string[] = []
+  page.on('console', (message) => { if (message.type() === 'error') consoleErrors.push(message.text()) })
+  await gotoHydrated(page, '/admin/mail')
+  await expect(row).toContainText('Sent')
+  expect(consoleErrors).toEqual([])
   await signOut(page)
 
   const invitation = await mailTo(email, /set a password/i)

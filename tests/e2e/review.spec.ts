@@ -45,6 +45,12 @@ test('an engineer submits, a reviewer overrides from the queue, and the engineer
   await expect(row).toContainText('Ada Ferreira')
   await expect(row).toContainText(/%/)
   await keepScreenshot(page, 'review-queue')
+  // Rendered on the server too: a reload hydrates without a mismatch.
+  const consoleErrors: string[] = []
+  page.on('console', (message) => { if (message.type() === 'error') consoleErrors.push(message.text()) })
+  await gotoHydrated(page, '/review')
+  await expect(row).toContainText(title)
+  expect(consoleErrors).toEqual([])
 
   await row.getByRole('link', { name: title }).click()
   await expect(page.getByTestId('status-in_review')).toBeVisible()
