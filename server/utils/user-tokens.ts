@@ -60,10 +60,7 @@ export async function queueInvitation(tx: DbOrTx, user: { id: number; email: str
   })
 }
 
-/**
- * A reset link for an existing, active account, or nothing at all for an unknown address. The token
- * is generated either way, so the two cases do similar work before the answer.
- */
+/** A reset link for an existing, active account, or nothing at all for an unknown address. */
 export async function requestPasswordReset(email: string) {
   const pre = newToken()
   const user = await findUserByEmail(email)
@@ -90,6 +87,16 @@ export async function requestPasswordReset(email: string) {
     })
   })
   return true
+}
+
+/** requestPasswordReset in the background (after the answer): never throws, logs without the address. */
+export async function sendPasswordReset(email: string) {
+  try {
+    if (await requestPasswordReset(email)) kickMailDelivery()
+  }
+  catch (error) {
+    console.error(`[mail] a password reset request failed: ${error instanceof Error ? error.message : String(error)}`)
+  }
 }
 
 /**
