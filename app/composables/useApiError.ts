@@ -7,3 +7,8 @@ export function apiErrorInfo(error: unknown): ApiErrorInfo {
   const message = e?.data?.message ?? (status ? `Request failed (${status})` : 'The server could not be reached')
   return { status, message, fieldErrors: e?.data?.data?.fieldErrors ?? {} }
 }
+
+/** The first message per field, in the shape vee-validate's setErrors takes. */
+export function firstFieldErrors(info: ApiErrorInfo): Record<string, string> {
+  return Object.fromEntries(Object.entries(info.fieldErrors).map(([field, messages]) => [field, messages[0] ?? '']))
+}

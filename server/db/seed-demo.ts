@@ -67,7 +67,7 @@ type DemoUserKey = (typeof DEMO_USERS)[number]['key']
 const DAY = 24 * 3600 * 1000
 
 // Demo cases, physically sensible for each project (SI units).
-const FERRY_HULL: CaseInputDraft = {
+export const FERRY_HULL: CaseInputDraft = {
   regime: 'external',
   fluid: { medium: 'water', temperatureK: 288.15 },
   velocity: 6, // about 11.7 kn service speed
@@ -78,7 +78,7 @@ const FERRY_HULL: CaseInputDraft = {
   budget: { coreHours: 20_000, cores: 256, wallClockHours: 72 },
 }
 
-const DATA_HALL_DUCT: CaseInputDraft = {
+export const DATA_HALL_DUCT: CaseInputDraft = {
   regime: 'internal',
   fluid: { medium: 'air', temperatureK: 295, pressurePa: 101_325 },
   velocity: 8,
@@ -91,7 +91,7 @@ const DATA_HALL_DUCT: CaseInputDraft = {
   budget: { coreHours: 5_000, cores: 128, wallClockHours: 48 },
 }
 
-const CONDENSER_WAKE: CaseInputDraft = {
+export const CONDENSER_WAKE: CaseInputDraft = {
   regime: 'external',
   fluid: { medium: 'air', temperatureK: 288.15, pressurePa: 101_325 },
   velocity: 10, // design wind at roof height
@@ -104,7 +104,7 @@ const CONDENSER_WAKE: CaseInputDraft = {
   budget: { coreHours: 200_000, cores: 1024, wallClockHours: 168 },
 }
 
-const PUMP_INTAKE: CaseInputDraft = {
+export const PUMP_INTAKE: CaseInputDraft = {
   regime: 'internal',
   fluid: { medium: 'water', temperatureK: 283.15 },
   velocity: 1.2, // bell-mouth approach velocity

@@ -2,35 +2,14 @@
 // that go through the real routes.
 import { expect } from 'vitest'
 import type { CaseInputDraft } from '../../shared/rules'
+import { CONDENSER_WAKE, DATA_HALL_DUCT } from '../../server/db/seed-demo'
 import type { ApiClient } from './api-client'
 
-// KB-102's supply duct: air at 295 K, 8 m/s in a 0.6 m galvanised duct (k about 0.15 mm).
-export const DUCT_CASE: CaseInputDraft = {
-  regime: 'internal',
-  fluid: { medium: 'air', temperatureK: 295, pressurePa: 101_325 },
-  velocity: 8,
-  length: 0.6,
-  roughness: 0.00015,
-  geometry: 'duct',
-  separation: 'none',
-  physics: { heatTransfer: true },
-  quantities: ['pressure', 'heat-transfer'],
-  budget: { coreHours: 5_000, cores: 128, wallClockHours: 48 },
-}
-
-// KB-103's rooftop condenser: a 2 m bluff body in a 10 m/s wind, massive separation, tonal noise.
-export const CONDENSER_CASE: CaseInputDraft = {
-  regime: 'external',
-  fluid: { medium: 'air', temperatureK: 288.15, pressurePa: 101_325 },
-  velocity: 10,
-  length: 2,
-  turbulenceIntensity: 0.1,
-  geometry: 'bluff',
-  separation: 'massive',
-  physics: { acoustics: true },
-  quantities: ['noise', 'unsteady-loads'],
-  budget: { coreHours: 200_000, cores: 1024, wallClockHours: 168 },
-}
+// The demo scenario's cases (server/db/seed-demo.ts): KB-102's supply duct (air, 8 m/s in a 0.6 m
+// galvanised duct, heat transfer) and KB-103's rooftop condenser (2 m bluff body, 10 m/s wind,
+// massive separation, tonal noise).
+export const DUCT_CASE: CaseInputDraft = DATA_HALL_DUCT
+export const CONDENSER_CASE: CaseInputDraft = CONDENSER_WAKE
 
 export async function projectIds(client: ApiClient): Promise<Record<string, number>> {
   const res = await client.get('/api/projects')
