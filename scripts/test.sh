@@ -7,7 +7,7 @@
 source "$(dirname "$0")/lib/common.sh"
 
 SUITE="${1:-all}"; [ $# -gt 0 ] && shift
-ensure_apt_packages postgresql chromium
+ensure_apt_packages postgresql chromium poppler-utils
 ensure_node_modules
 
 PG_DIR="$(pg_home ".pg-test$SLOT_SUFFIX")"

@@ -19,6 +19,7 @@ ensure_apt_packages() {
     case "$pkg" in
       postgresql) [ -n "$(pg_bin)" ] && [ -x "$(pg_bin)/initdb" ] || missing+=(postgresql) ;;
       chromium) [ -x /usr/bin/chromium ] || missing+=(chromium) ;;
+      poppler-utils) [ -x /usr/bin/pdftotext ] || missing+=(poppler-utils) ;;
       *) dpkg -s "$pkg" >/dev/null 2>&1 || missing+=("$pkg") ;;
     esac
   done
