@@ -11,7 +11,7 @@ export function useReviewAction() {
     busy.value = name
     error.value = null
     try {
-      return await $fetch<T>(path, { method: 'POST', body })
+      return await $fetch<T>(path, { method: 'POST', body }) as T
     } catch (e) {
       error.value = apiErrorInfo(e)
       return null

@@ -11,7 +11,8 @@ function limits() {
     accountFailures: Number(c.accountFailures),
     clientFailures: Number(c.clientFailures),
     windowMinutes: Number(c.windowMinutes),
-    trustProxy: c.trustProxy === true || c.trustProxy === 'true',
+    // Nuxt parses NUXT_LOGIN_LIMIT_TRUST_PROXY=true into a boolean.
+    trustProxy: c.trustProxy === true,
   }
 }
 
@@ -28,7 +29,7 @@ export async function assertNotLocked(event: H3Event, keys: { account: string; c
   const lockedUntil = rows[0]?.locked_until
   if (!lockedUntil) return
   const seconds = Math.max(1, Math.ceil((new Date(lockedUntil).getTime() - Date.now()) / 1000))
-  setResponseHeader(event, 'Retry-After', String(seconds))
+  setResponseHeader(event, 'Retry-After', seconds)
   const minutes = Math.ceil(seconds / 60)
   throw createError({
     statusCode: 429,
