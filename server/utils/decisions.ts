@@ -124,7 +124,7 @@ export async function throwConflict(db: DbOrTx, decisionId: number, version: num
 
 const revisions = tables.decisionRevisions
 const decisions = tables.decisions
-const currentRevisionJoin = and(eq(revisions.decisionId, decisions.id), eq(revisions.revision, decisions.currentRevision))
+export const currentRevisionJoin = and(eq(revisions.decisionId, decisions.id), eq(revisions.revision, decisions.currentRevision))
 
 export type DecisionOverride = {
   approach: string
@@ -168,10 +168,14 @@ export async function readDecision(id: number, db: DbOrTx = useDb()) {
 }
 export type DecisionDto = Awaited<ReturnType<typeof readDecision>>
 
-// The approach a decision stands for: the reviewer's when overridden, else the engine's.
-const chosenApproach = sql<string>`coalesce(${decisions.override}->>'approach', ${revisions.advice}->'recommendation'->>'approach')`
+// The approach a decision stands for: the reviewer's when overridden, else the engine's; its
+// model and the engine's core-hours for it. Shared with the overview and the audit.
+export const chosenApproach = sql<string>`coalesce(${decisions.override}->>'approach', ${revisions.advice}->'recommendation'->>'approach')`
+export const chosenModel = sql<string>`coalesce(${decisions.override}->>'model', ${revisions.advice}->'recommendation'->>'model')`
+export const chosenCoreHours = sql<number | null>`(SELECT (a->>'coreHours')::float8 FROM jsonb_array_elements(${revisions.advice}->'approaches') a WHERE a->>'id' = ${chosenApproach} LIMIT 1)`
+export const budgetCoreHours = sql<number>`(${revisions.caseInput}->'budget'->>'coreHours')::float8`
 
-function summaryQuery<Extra extends Record<string, SQL.Aliased | SQL>>(extra: Extra = {} as Extra) {
+export function summaryQuery<Extra extends Record<string, SQL.Aliased | SQL>>(extra: Extra = {} as Extra) {
   return useDb().select({
     ...extra,
     id: decisions.id,
@@ -183,10 +187,10 @@ function summaryQuery<Extra extends Record<string, SQL.Aliased | SQL>>(extra: Ex
     authorId: tables.users.id,
     authorName: tables.users.name,
     approach: chosenApproach,
-    model: sql<string>`coalesce(${decisions.override}->>'model', ${revisions.advice}->'recommendation'->>'model')`,
+    model: chosenModel,
     reynolds: sql<number>`(${revisions.advice}->>'reynolds')::float8`.mapWith(Number),
-    coreHours: sql<number | null>`(SELECT (a->>'coreHours')::float8 FROM jsonb_array_elements(${revisions.advice}->'approaches') a WHERE a->>'id' = ${chosenApproach} LIMIT 1)`.mapWith(Number),
-    budgetCoreHours: sql<number>`(${revisions.caseInput}->'budget'->>'coreHours')::float8`.mapWith(Number),
+    coreHours: chosenCoreHours.mapWith(Number),
+    budgetCoreHours: budgetCoreHours.mapWith(Number),
     updatedAt: decisions.updatedAt,
     createdAt: decisions.createdAt,
   }).from(decisions)
@@ -194,7 +198,7 @@ function summaryQuery<Extra extends Record<string, SQL.Aliased | SQL>>(extra: Ex
     .innerJoin(tables.users, eq(tables.users.id, decisions.authorId))
 }
 
-function toSummary<T extends { authorId: number; authorName: string }>({ authorId, authorName, ...rest }: T) {
+export function toSummary<T extends { authorId: number; authorName: string }>({ authorId, authorName, ...rest }: T) {
   return { ...rest, author: { id: authorId, name: authorName } }
 }
 

@@ -1,0 +1,204 @@
+// The team lead's overview: every figure is recomputed here from the decisions read one by one
+// through the decision API (the engine's advice and the reviewer's override as stored), not from
+// the overview's own SQL.
+import { beforeAll, describe, expect, it } from 'vitest'
+import { MODELS_BY_APPROACH, WALL_TREATMENTS_BY_APPROACH, type ApproachId } from '../../shared/rules'
+import { type ApiClient, signIn } from '../support/api-client'
+import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, uniqueTitle } from '../support/decisions'
+
+type Detail = {
+  decision: {
+    id: number; projectId: number; status: string; createdAt: string
+    caseInput: { budget: { coreHours: number } }
+    advice: { recommendation: { approach: string; model: string }; approaches: { id: string; coreHours: number }[]; trace: { rule: string; fired: boolean }[] }
+    override: { approach: string; model: string; disagreedRules: string[] } | null
+  }
+}
+type Row = {
+  id: number; projectId: number; status: string; createdDay: string
+  approach: string; model: string; engineApproach: string; coreHours: number; budget: number; disagreedRules: string[]
+}
+
+let lead: ApiClient
+let auditor: ApiClient
+let engineer: ApiClient
+let reviewer: ApiClient
+let project: Record<string, number>
+
+/** Every decision in the database, read through the project lists and each decision's page. */
+async function readAllDecisions(): Promise<Row[]> {
+  const rows: Row[] = []
+  for (const id of Object.values(project)) {
+    for (let page = 1; ; page++) {
+      const list = (await lead.get(`/api/projects/${id}/decisions?pageSize=100&page=${page}`)).body
+      for (const { id: decisionId } of list.decisions as { id: number }[]) {
+        const { decision: d } = (await lead.get(`/api/decisions/${decisionId}`)).body as Detail
+        // The approach a decision stands for: the reviewer's when overridden, else the engine's.
+        const approach = d.override?.approach ?? d.advice.recommendation.approach
+        rows.push({
+          id: d.id, projectId: d.projectId, status: d.status, createdDay: d.createdAt.slice(0, 10),
+          approach,
+          model: d.override?.model ?? d.advice.recommendation.model,
+          engineApproach: d.advice.recommendation.approach,
+          coreHours: d.advice.approaches.find(a => a.id === approach)!.coreHours,
+          budget: d.caseInput.budget.coreHours,
+          disagreedRules: d.override?.disagreedRules ?? [],
+        })
+      }
+      if (page * 100 >= list.total) break
+    }
+  }
+  return rows
+}
+
+function tally<T>(items: T[], key: (item: T) => string) {
+  const counts = new Map<string, number>()
+  for (const item of items) counts.set(key(item), (counts.get(key(item)) ?? 0) + 1)
+  return counts
+}
+
+const closeTo = (actual: number, expected: number) =>
+  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(expected)))
+
+/** The overview as it must be for these decisions, in the shape the route answers. */
+function expectOverview(body: any, rows: Row[], projectsInScope: number[]) {
+  const byStatus = tally(rows, r => r.status)
+  expect(body.decisions.total).toBe(rows.length)
+  for (const status of ['draft', 'in_review', 'approved', 'overridden', 'superseded']) {
+    expect(body.decisions.byStatus[status], status).toBe(byStatus.get(status) ?? 0)
+  }
+
+  const approaches = tally(rows, r => r.approach)
+  expect(Object.fromEntries(body.methods.byApproach.map((m: any) => [m.approach, m.count]))).toEqual(Object.fromEntries(approaches))
+  const models = tally(rows, r => `${r.approach} / ${r.model}`)
+  expect(Object.fromEntries(body.methods.byModel.map((m: any) => [`${m.approach} / ${m.model}`, m.count]))).toEqual(Object.fromEntries(models))
+  // Most used first.
+  const counts = body.methods.byApproach.map((m: any) => m.count)
+  expect(counts).toEqual([...counts].sort((a, b) => b - a))
+
+  const overridden = rows.filter(r => r.status === 'overridden')
+  const reviewed = rows.filter(r => r.status === 'approved' || r.status === 'overridden').length
+  expect(body.overrides.overridden).toBe(overridden.length)
+  expect(body.overrides.reviewed).toBe(reviewed)
+  if (reviewed) closeTo(body.overrides.rate, overridden.length / reviewed)
+  else expect(body.overrides.rate).toBeNull()
+
+  const pairs = tally(overridden, r => `${r.engineApproach} -> ${r.approach}`)
+  const top = [...pairs.values()].sort((a, b) => b - a).slice(0, 10)
+  expect(body.overrides.pairs.map((p: any) => p.count)).toEqual(top)
+  for (const p of body.overrides.pairs) expect(pairs.get(`${p.engineApproach} -> ${p.reviewerApproach}`)).toBe(p.count)
+  const rules = tally(overridden.flatMap(r => r.disagreedRules), rule => rule)
+  expect(body.overrides.disagreedRules.map((r: any) => r.count)).toEqual([...rules.values()].sort((a, b) => b - a).slice(0, 10))
+  for (const r of body.overrides.disagreedRules) expect(rules.get(r.rule)).toBe(r.count)
+
+  const sum = (list: Row[], value: (r: Row) => number) => list.reduce((s, r) => s + value(r), 0)
+  closeTo(body.compute.coreHours, sum(rows, r => r.coreHours))
+  closeTo(body.compute.budgetCoreHours, sum(rows, r => r.budget))
+  expect(body.compute.overBudget).toBe(rows.filter(r => r.coreHours > r.budget).length)
+  expect(body.compute.projects.map((p: any) => p.id).sort()).toEqual([...projectsInScope].sort())
+  for (const p of body.compute.projects) {
+    const mine = rows.filter(r => r.projectId === p.id)
+    expect(p.decisions, p.code).toBe(mine.length)
+    expect(p.overridden, p.code).toBe(mine.filter(r => r.status === 'overridden').length)
+    expect(p.overBudget, p.code).toBe(mine.filter(r => r.coreHours > r.budget).length)
+    closeTo(p.coreHours, sum(mine, r => r.coreHours))
+    closeTo(p.budgetCoreHours, sum(mine, r => r.budget))
+  }
+}
+
+/** A reviewer's choice other than the engine's, valid for its approach. */
+function otherChoice(recommended: string) {
+  const approach: ApproachId = recommended === 'urans' ? 'rans' : 'urans'
+  return { approach, model: MODELS_BY_APPROACH[approach][0]!, wallTreatment: WALL_TREATMENTS_BY_APPROACH[approach][0]! }
+}
+
+beforeAll(async () => {
+  ;[lead, auditor, engineer, reviewer] = await Promise.all(['lead', 'auditor', 'engineer', 'reviewer'].map(signIn))
+  project = await projectIds(lead)
+
+  // Beside the demo decisions: an approval, two overrides (one disagreeing with two rules) and a
+  // draft whose budget is far below what any approach costs.
+  const approved = await createDraft(engineer, project['KB-102']!, { title: uniqueTitle('Overview approved') })
+  const submitted = await act(engineer, `/api/decisions/${approved.id}/submit`, { version: approved.version })
+  await act(reviewer, `/api/decisions/${approved.id}/approve`, { version: submitted.version })
+  for (const caseInput of [CONDENSER_CASE, DUCT_CASE]) {
+    const draft = await createDraft(engineer, project['KB-103']!, { caseInput, title: uniqueTitle('Overview override') })
+    const inReview = await act(engineer, `/api/decisions/${draft.id}/submit`, { version: draft.version })
+    const fired = (draft.advice.trace as { rule: string; fired: boolean }[]).filter(t => t.fired).map(t => t.rule)
+    await act(reviewer, `/api/decisions/${draft.id}/override`, {
+      version: inReview.version, ...otherChoice(draft.advice.recommendation.approach),
+      comment: 'The unsteady wake matters for this client; the steady answer hides it.',
+      disagreedRules: fired.slice(0, 2),
+    })
+  }
+  await createDraft(engineer, project['KB-101']!, {
+    title: uniqueTitle('Overview tight budget'), caseInput: { ...DUCT_CASE, budget: { ...DUCT_CASE.budget, coreHours: 0.01 } },
+  })
+})
+
+describe('GET /api/overview', () => {
+  it('sums every project: statuses, methods, overrides and compute as the decisions say', async () => {
+    const rows = await readAllDecisions()
+    // The data can show what is counted: overrides with rules, and at least one over budget.
+    expect(rows.filter(r => r.status === 'overridden').length).toBeGreaterThanOrEqual(3)
+    expect(rows.some(r => r.coreHours > r.budget)).toBe(true)
+    const res = await lead.get('/api/overview')
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+    expectOverview(res.body, rows, Object.values(project))
+    expect(res.body.overrides.disagreedRules.length).toBeGreaterThan(0)
+    // The auditor reads the same overview.
+    expect((await auditor.get('/api/overview')).body).toEqual(res.body)
+  })
+
+  it('narrows to one project', async () => {
+    const rows = (await readAllDecisions()).filter(r => r.projectId === project['KB-103'])
+    const res = await lead.get(`/api/overview?projectId=${project['KB-103']}`)
+    expect(res.status).toBe(200)
+    expectOverview(res.body, rows, [project['KB-103']!])
+  })
+
+  it('narrows to a range of creation dates, both ends inclusive (UTC days)', async () => {
+    const all = await readAllDecisions()
+    // The demo decisions are dated over the fortnight before; the range leaves out the oldest day.
+    const days = [...new Set(all.map(r => r.createdDay))].sort()
+    expect(days.length).toBeGreaterThan(2)
+    const from = days[1]!
+    const to = days.at(-2)!
+    const rows = all.filter(r => r.createdDay >= from && r.createdDay <= to)
+    const res = await lead.get(`/api/overview?from=${from}&to=${to}`)
+    expect(res.status).toBe(200)
+    expect(rows.length).toBeLessThan(all.length)
+    expectOverview(res.body, rows, Object.values(project))
+    // One day, from and to the same.
+    const single = await lead.get(`/api/overview?from=${from}&to=${from}`)
+    expectOverview(single.body, all.filter(r => r.createdDay === from), Object.values(project))
+    // An empty range answers zeros, not an error.
+    const empty = await lead.get('/api/overview?from=2001-01-01&to=2001-01-31')
+    expect(empty.status).toBe(200)
+    expect(empty.body.decisions.total).toBe(0)
+    expect(empty.body.overrides.rate).toBeNull()
+    expect(empty.body.compute.projects.every((p: any) => p.decisions === 0 && p.coreHours === 0)).toBe(true)
+  })
+
+  it.each(['engineer', 'reviewer', 'admin'])('refuses %s with 403', async (role) => {
+    const res = await (await signIn(role)).get('/api/overview')
+    expect(res.status).toBe(403)
+    expect(res.body.message).toMatch(/lead or auditor/)
+  })
+
+  it.each([
+    ['from=not-a-date', /From must be a date written YYYY-MM-DD/],
+    ['to=2026-02-30', /To is not a calendar date/],
+    ['from=2026-03-10&to=2026-03-01', /To must be on or after From/],
+    ['projectId=abc', /project must be given by its id/],
+  ])('answers 400 with a message for %s', async (query, message) => {
+    const res = await lead.get(`/api/overview?${query}`)
+    expect(res.status).toBe(400)
+    expect(res.body.message).toMatch(message)
+  })
+
+  it('answers 404 for a project that does not exist', async () => {
+    const res = await lead.get('/api/overview?projectId=999999')
+    expect(res.status).toBe(404)
+  })
+})
