@@ -4,8 +4,8 @@ import { keepScreenshot, signInAs, signOut } from '../support/e2e'
 const NAV: Record<string, string[]> = {
   engineer: ['Projects'],
   reviewer: ['Projects', 'Review queue'],
-  auditor: ['Projects'],
-  lead: ['Projects'],
+  auditor: ['Projects', 'Audit', 'Overview'],
+  lead: ['Projects', 'Overview', 'Audit'],
   admin: ['Projects', 'Users', 'Manage projects', 'Mail'],
 }
 const ROLE_LABEL: Record<string, string> = {

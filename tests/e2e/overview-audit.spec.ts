@@ -1,0 +1,76 @@
+import { readFile } from 'node:fs/promises'
+import { expect, test } from '@playwright/test'
+import { gotoHydrated, keepScreenshot, signInAs } from '../support/e2e'
+
+const CSV_HEADER = 'decision id,project,title,status,author,revisions,events,chain valid,chain broken at event,last hash,engine version,ruleset version'
+
+test('the team lead reads the overview: figures, the method chart, the project table and a project filter', async ({ page }) => {
+  await signInAs(page, 'lead')
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Overview' }).click()
+  await expect(page).toHaveURL(/\/overview$/)
+  await page.waitForLoadState('networkidle')
+  // The page shows what the API answers for the same filter.
+  const all = await (await page.request.get('/api/overview')).json()
+  expect(all.decisions.total).toBeGreaterThan(0)
+  await expect(page.getByTestId('figure-decisions')).toHaveText(String(all.decisions.total))
+  await expect(page.getByTestId('figure-over-budget')).toHaveText(String(all.compute.overBudget))
+  await expect(page.getByTestId('overview-method-chart').locator('canvas')).toBeVisible()
+  await expect(page.getByTestId('overview-method-chart')).toHaveAttribute('aria-label', /Bar chart of decisions by the approach/)
+  await expect(page.getByTestId('overview-project-table').locator('tbody tr')).toHaveCount(all.compute.projects.length)
+  await expect(page.getByTestId('overview-cautions')).toContainText(/order-of-magnitude/)
+  await keepScreenshot(page, 'lead-overview')
+
+  // Sorting by project code, ascending then descending.
+  const codes = () => page.getByTestId('overview-project-table').locator('tbody tr td:first-child a').allTextContents()
+  await page.getByTestId('overview-sort-code').click()
+  const sorted = [...all.compute.projects.map((p: { code: string }) => p.code)].sort()
+  await expect.poll(codes).toEqual(sorted)
+  await page.getByTestId('overview-sort-code').click()
+  await expect.poll(codes).toEqual([...sorted].reverse())
+
+  // One project: the figures follow, and the address keeps the filter.
+  const kb103 = all.compute.projects.find((p: { code: string }) => p.code === 'KB-103')
+  await page.getByTestId('overview-project').selectOption(String(kb103.id))
+  await expect(page).toHaveURL(new RegExp(`projectId=${kb103.id}`))
+  await expect(page.getByTestId('figure-decisions')).toHaveText(String(kb103.decisions))
+  await expect(page.getByTestId('overview-project-table').locator('tbody tr')).toHaveCount(1)
+
+  // A range with no decisions shows the empty state, not an error.
+  await page.getByTestId('overview-from').fill('2001-01-01')
+  await page.getByTestId('overview-to').fill('2001-01-31')
+  await expect(page.getByTestId('overview-empty')).toBeVisible()
+})
+
+test('QA opens the audit, verifies the chains on the page, follows a decision and downloads the CSV', async ({ page }) => {
+  await signInAs(page, 'auditor')
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Audit' }).click()
+  await expect(page).toHaveURL(/\/audit$/)
+  await gotoHydrated(page, '/audit')
+  const rows = page.getByTestId('audit-table').locator('tbody tr')
+  await expect(rows.first()).toBeVisible()
+  const count = await rows.count()
+
+  await page.getByTestId('verify-page').click()
+  await expect(page.getByTestId('verify-summary')).toContainText(`Verified ${count} chains`)
+  await expect(page.getByTestId('verify-summary')).toContainText(`${count} intact`)
+  const results = page.getByTestId('audit-table').getByTestId('chain-result')
+  await expect(results).toHaveCount(count)
+  for (const text of await results.allTextContents()) expect(text).toMatch(/^chain intact \(\d+ events?\)$/)
+  await expect(page.getByTestId('audit-table')).toContainText('verified just now')
+  await keepScreenshot(page, 'audit')
+
+  // The CSV of the whole list.
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('audit-csv').click()])
+  expect(download.suggestedFilename()).toMatch(/^eddyledger-audit-\d{4}-\d{2}-\d{2}\.csv$/)
+  const csv = (await readFile((await download.path())!, 'utf8')).replace(/^\uFEFF/, '')
+  const lines = csv.trimEnd().split('\r\n')
+  expect(lines[0]).toBe(CSV_HEADER)
+  expect(lines.length - 1).toBeGreaterThanOrEqual(count)
+
+  // Each row links to its decision page.
+  const first = rows.first().getByRole('link')
+  const title = await first.textContent()
+  await first.click()
+  await expect(page).toHaveURL(/\/decisions\/\d+$/)
+  await expect(page.getByTestId('decision-title')).toHaveText(title!.trim())
+})
