@@ -269,12 +269,15 @@ class ReportWriter {
 
 // ---- content
 
+const INPUT_FIGURES = 6
+
 function caseRows(data: DecisionReportData): [string, string][] {
   const input = data.decision.caseInput
   const { advice } = data.decision
   const internal = input.regime === 'internal'
   const ticked = Object.entries(input.physics ?? {}).filter(([, on]) => on).map(([k]) => PHYSICS_LABELS[k as keyof typeof PHYSICS_LABELS] ?? k)
-  const given = (value: number | undefined, unit: string, otherwise: string) => (value === undefined ? otherwise : formatQuantity(value, unit))
+  // The engineer's own inputs are recorded as entered (up to INPUT_FIGURES figures), not rounded.
+  const given = (value: number | undefined, unit: string, otherwise: string) => (value === undefined ? otherwise : formatQuantity(value, unit, INPUT_FIGURES))
   return [
     ['Flow regime', REGIME_LABELS[input.regime]],
     ['Geometry', GEOMETRY_LABELS[input.geometry]],
@@ -285,17 +288,17 @@ function caseRows(data: DecisionReportData): [string, string][] {
     ['Density used', formatQuantity(advice.fluid.density, 'kg/m³')],
     ['Dynamic viscosity used', formatQuantity(advice.fluid.viscosity, 'Pa·s')],
     ['Kinematic viscosity', formatQuantity(advice.fluid.kinematicViscosity, 'm²/s')],
-    [internal ? 'Bulk velocity' : 'Free-stream velocity', formatQuantity(input.velocity, 'm/s')],
-    [internal ? 'Hydraulic diameter' : 'Reference length', formatQuantity(input.length, 'm')],
+    [internal ? 'Bulk velocity' : 'Free-stream velocity', formatQuantity(input.velocity, 'm/s', INPUT_FIGURES)],
+    [internal ? 'Hydraulic diameter' : 'Reference length', formatQuantity(input.length, 'm', INPUT_FIGURES)],
     ...(internal ? [['Wall roughness (sand-grain)', given(input.roughness, 'm', 'smooth wall')] as [string, string]] : []),
-    ['Turbulence intensity', `${formatSig(input.turbulenceIntensity)} (${formatPercent(input.turbulenceIntensity)})`],
+    ['Turbulence intensity', `${formatSig(input.turbulenceIntensity, INPUT_FIGURES)} (${formatPercent(input.turbulenceIntensity, INPUT_FIGURES)})`],
     ['Physics', ticked.length ? ticked.join('; ') : 'none ticked'],
     ['Quantities of interest', input.quantities.map((q) => QUANTITY_LABELS[q] ?? q).join('; ')],
-    ['Core-hour budget', formatQuantity(input.budget.coreHours, 'core-h')],
-    ['Cores', `${formatSig(input.budget.cores)} cores`],
-    ['Wall-clock budget', formatQuantity(input.budget.wallClockHours, 'h')],
-    ['Target y+', input.yPlusTarget === undefined ? "not set (the wall treatment's own)" : `${formatSig(input.yPlusTarget)} (dimensionless)`],
-    ['Growth ratio', `${formatSig(input.growthRatio)} (dimensionless)`],
+    ['Core-hour budget', formatQuantity(input.budget.coreHours, 'core-h', INPUT_FIGURES)],
+    ['Cores', `${formatSig(input.budget.cores, INPUT_FIGURES)} cores`],
+    ['Wall-clock budget', formatQuantity(input.budget.wallClockHours, 'h', INPUT_FIGURES)],
+    ['Target y+', input.yPlusTarget === undefined ? "not set (the wall treatment's own)" : `${formatSig(input.yPlusTarget, INPUT_FIGURES)} (dimensionless)`],
+    ['Growth ratio', `${formatSig(input.growthRatio, INPUT_FIGURES)} (dimensionless)`],
     ['Reynolds number', `${formatSig(advice.reynolds)} (dimensionless)`],
     ...(advice.mach !== null ? [['Mach number', `${formatSig(advice.mach)} (dimensionless)`] as [string, string]] : []),
   ]

@@ -5,7 +5,7 @@ import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
-import { formatQuantity } from '../../app/utils/format'
+import { formatQuantity, formatSig } from '../../app/utils/format'
 import { APPROACH_LABELS, GENERAL_CAUTIONS, type ApproachId } from '../../shared/rules'
 import { reportText } from '../../server/utils/decision-report'
 import { ApiClient, signIn } from '../support/api-client'
@@ -97,6 +97,10 @@ describe('GET /api/decisions/:id/report.pdf', () => {
     expectWords(text, formatQuantity(decision.override.wall.firstCellHeight, 'm'))
     for (const caution of GENERAL_CAUTIONS) expectWords(text, caution)
     for (const caution of decision.advice.cautions as string[]) expectWords(text, caution)
+    // The engineer's inputs stand as entered, not rounded to three figures (1024 cores, 101325 Pa).
+    expectWords(text, `${formatSig(decision.caseInput.budget.cores, 6)} cores`)
+    expect(decision.caseInput.budget.cores % 10).not.toBe(0)
+    expectWords(text, formatQuantity(decision.caseInput.fluid.pressurePa, 'Pa', 6))
 
     for (const event of detail.events) {
       expect(text).toContain(event.type)
