@@ -3,7 +3,7 @@
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { type ApiClient, signIn } from '../support/api-client'
-import { act, createDraft, projectIds, uniqueTitle } from '../support/decisions'
+import { act, createDraft, projectIds, tamperWithEvent, uniqueTitle } from '../support/decisions'
 
 type AuditRow = {
   id: number; projectId: number; projectCode: string; title: string; status: string; revision: number
@@ -181,19 +181,7 @@ describe('tampering', () => {
     // Other test files may have left an altered decision of their own; only the change counts here.
     const brokenBefore = new Set(before.filter(r => !r.chain.valid).map(r => r.id))
     expect(brokenBefore.has(mine.id)).toBe(false)
-    const { rows } = await owner.query('SELECT id FROM decision_events WHERE decision_id = $1 AND seq = 3', [mine.id])
-    const tamperedId = Number(rows[0].id)
-    // Only by switching the trigger off, as the owner, can a row be changed at all.
-    await owner.query('BEGIN')
-    try {
-      await owner.query('ALTER TABLE decision_events DISABLE TRIGGER decision_events_append_only')
-      await owner.query(`UPDATE decision_events SET payload = '{"comment":"Looks fine."}' WHERE id = $1`, [tamperedId])
-      await owner.query('ALTER TABLE decision_events ENABLE TRIGGER decision_events_append_only')
-      await owner.query('COMMIT')
-    } catch (error) {
-      await owner.query('ROLLBACK')
-      throw error
-    }
+    const tamperedId = await tamperWithEvent(owner, mine.id, 3, { comment: 'Looks fine.' })
 
     const after = await allAuditRows(auditor)
     const brokenAfter = after.filter(r => !r.chain.valid)

@@ -6,7 +6,7 @@ import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { advise } from '../../shared/rules'
 import { ApiClient, signIn } from '../support/api-client'
-import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds } from '../support/decisions'
+import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, tamperWithEvent } from '../support/decisions'
 
 type ApiEvent = {
   id: number; seq: number; type: string; actor: { id: number; name: string }; actorRole: string
@@ -118,19 +118,7 @@ describe('tampering', () => {
     await act(reviewer, `/api/decisions/${draft.id}/comments`, { comment: 'Which inlet profile did you assume?' })
     await act(reviewer, `/api/decisions/${draft.id}/approve`, { version: submitted.version })
     const tampered = draft.id
-    const { rows } = await owner.query('SELECT id FROM decision_events WHERE decision_id = $1 AND seq = 3', [tampered])
-    const tamperedId = Number(rows[0].id)
-    // Only by switching the trigger off, as the owner, can a row be changed at all.
-    await owner.query('BEGIN')
-    try {
-      await owner.query('ALTER TABLE decision_events DISABLE TRIGGER decision_events_append_only')
-      await owner.query(`UPDATE decision_events SET payload = '{"comment":"Looks fine."}' WHERE id = $1`, [tamperedId])
-      await owner.query('ALTER TABLE decision_events ENABLE TRIGGER decision_events_append_only')
-      await owner.query('COMMIT')
-    } catch (error) {
-      await owner.query('ROLLBACK')
-      throw error
-    }
+    const tamperedId = await tamperWithEvent(owner, tampered, 3, { comment: 'Looks fine.' })
     const res = await auditor.get(`/api/decisions/${tampered}/verify`)
     expect(res.status).toBe(200)
     expect(res.body).toEqual({ valid: false, checked: 3, brokenAt: tamperedId })

@@ -39,3 +39,23 @@ export async function act(client: ApiClient, path: string, body: Record<string, 
   expect(res.status, `${path}: ${JSON.stringify(res.body)}`).toBe(expected)
   return res.body.decision as { id: number; version: number; status: string; [key: string]: any }
 }
+
+/**
+ * What only a tamperer with the database owner's rights could do: switch the append-only trigger
+ * off, rewrite one event's payload, switch it on again. Returns the altered event's id.
+ */
+export async function tamperWithEvent(owner: import('pg').Client, decisionId: number, seq: number, payload: unknown) {
+  const { rows } = await owner.query('SELECT id FROM decision_events WHERE decision_id = $1 AND seq = $2', [decisionId, seq])
+  const eventId = Number(rows[0].id)
+  await owner.query('BEGIN')
+  try {
+    await owner.query('ALTER TABLE decision_events DISABLE TRIGGER decision_events_append_only')
+    await owner.query('UPDATE decision_events SET payload = $2 WHERE id = $1', [eventId, JSON.stringify(payload)])
+    await owner.query('ALTER TABLE decision_events ENABLE TRIGGER decision_events_append_only')
+    await owner.query('COMMIT')
+  } catch (error) {
+    await owner.query('ROLLBACK')
+    throw error
+  }
+  return eventId
+}
