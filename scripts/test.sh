@@ -2,7 +2,7 @@
 # npm test: the same set-up as npm start on a throwaway cluster (own folder and port, removed
 # after), then unit, API (real server + PostgreSQL + fake SMTP over HTTP) and browser tests.
 #   npm test               every suite
-#   npm test -- unit       one suite (unit | api | e2e), extra arguments go to its runner:
+#   npm test -- unit       one suite (types | unit | api | e2e), extra arguments go to its runner:
 #   npm test -- api tests/api/auth.spec.ts
 source "$(dirname "$0")/lib/common.sh"
 
@@ -34,15 +34,18 @@ export TEST_SMTP_PORT="$SMTP_PORT" TEST_MAILDEV_URL="http://127.0.0.1:$MAIL_WEB_
 
 ensure_build
 
+# Type-checks app, server and shared code (vue-tsc through Nuxt); against .nuxt, so without a slot.
+run_types() { log "type check"; EDDY_BUILD_SLOT= npx nuxt typecheck; }
 run_unit() { log "unit tests"; npx vitest run --project unit "$@"; }
 run_api() { log "API tests (built server, PostgreSQL $PG_PORT)"; npx vitest run --project api "$@"; }
 run_e2e() { log "browser tests (chromium)"; E2E_PORT="$(free_port)" npx playwright test "$@"; }
 
 case "$SUITE" in
+  types) run_types ;;
   unit) run_unit "$@" ;;
   api) run_api "$@" ;;
   e2e) run_e2e "$@" ;;
-  all) run_unit; run_api; run_e2e ;;
-  *) echo "unknown suite: $SUITE (unit | api | e2e | all)"; exit 2 ;;
+  all) run_types; run_unit; run_api; run_e2e ;;
+  *) echo "unknown suite: $SUITE (types | unit | api | e2e | all)"; exit 2 ;;
 esac
 log "all requested suites passed"

@@ -175,7 +175,7 @@ export const chosenModel = sql<string>`coalesce(${decisions.override}->>'model',
 export const chosenCoreHours = sql<number | null>`(SELECT (a->>'coreHours')::float8 FROM jsonb_array_elements(${revisions.advice}->'approaches') a WHERE a->>'id' = ${chosenApproach} LIMIT 1)`
 export const budgetCoreHours = sql<number>`(${revisions.caseInput}->'budget'->>'coreHours')::float8`
 
-export function summaryQuery<Extra extends Record<string, SQL.Aliased | SQL>>(extra: Extra = {} as Extra) {
+export function summaryQuery<Extra extends Record<string, SQL.Aliased | SQL> = Record<never, never>>(extra: Extra = {} as Extra) {
   return useDb().select({
     ...extra,
     id: decisions.id,
