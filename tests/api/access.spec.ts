@@ -60,6 +60,8 @@ describe('role matrix', () => {
     const res = await clients.engineer.get(`/api/projects/${notMine.id}`)
     expect(res.status).toBe(403)
     expect(res.body.message).toMatch(/not a member/i)
+    // The reason phrase matches the status, not a generic "Server Error".
+    expect(res.body.statusMessage).toBe('Forbidden')
     expect((await clients.engineer.get(`/api/projects/${mine[0]!.id}`)).status).toBe(200)
   })
 
@@ -73,7 +75,9 @@ describe('role matrix', () => {
   })
 
   it('answers 404 for a project that does not exist and 400 for a malformed id', async () => {
-    expect((await clients.auditor.get('/api/projects/999999')).status).toBe(404)
+    const missing = await clients.auditor.get('/api/projects/999999')
+    expect(missing.status).toBe(404)
+    expect(missing.body.statusMessage).toBe('Not Found')
     const bad = await clients.auditor.get('/api/projects/abc')
     expect(bad.status).toBe(400)
     expect(bad.body.message).toMatch(/number/i)

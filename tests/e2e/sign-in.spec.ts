@@ -58,3 +58,12 @@ test('the admin adds a user and sees them in the table', async ({ page }) => {
   await expect(page.getByTestId('users-table')).toContainText('iris.brennan@eddyledger.test')
   await keepScreenshot(page, 'admin-users')
 })
+
+test('an administrator on a project page is told who reads its decisions, with nothing to retry', async ({ page }) => {
+  await signInAs(page, 'admin')
+  await page.getByTestId('projects-table').getByRole('link').first().click()
+  const note = page.getByTestId('decisions-unavailable')
+  await expect(note).toContainText(/auditors and leads/i)
+  await expect(note.getByRole('button', { name: 'Retry' })).toHaveCount(0)
+})
+
