@@ -1,4 +1,4 @@
-import { asc, eq, sql } from 'drizzle-orm'
+import { and, asc, eq, isNull, sql } from 'drizzle-orm'
 import type { UserCreateBody, UserUpdateBody } from '#shared/schemas/users'
 
 // The public shape of a user: never the password hash.
@@ -8,6 +8,8 @@ export const publicUserColumns = {
   name: tables.users.name,
   role: tables.users.role,
   active: tables.users.active,
+  // Invited but no password chosen yet: the admin may send the invitation again.
+  awaitingPassword: sql<boolean>`${tables.users.passwordHash} IS NULL`,
   createdAt: tables.users.createdAt,
 }
 
@@ -37,6 +39,26 @@ export async function createUser(body: UserCreateBody, invitedBy?: { name: strin
   })
   kickMailDelivery()
   return user
+}
+
+/**
+ * A fresh invitation for someone who has not set a password yet (the first link expired or got
+ * lost); the links sent before stop working.
+ */
+export async function resendInvitation(id: number, invitedBy: { name: string }) {
+  const user = await useDb().query.users.findFirst({ where: eq(tables.users.id, id) })
+  if (!user) throw createError({ statusCode: 404, message: `User ${id} does not exist` })
+  if (!user.active) throw createError({ statusCode: 409, message: `${user.name} is deactivated; reactivate the account first` })
+  if (user.passwordHash) {
+    throw createError({ statusCode: 409, message: `${user.name} has already set a password; "Forgot password?" on the sign-in page sends a reset link` })
+  }
+  await useDb().transaction(async (tx) => {
+    await tx.update(tables.userTokens).set({ usedAt: new Date() })
+      .where(and(eq(tables.userTokens.userId, id), eq(tables.userTokens.purpose, 'invite'), isNull(tables.userTokens.usedAt)))
+    await queueInvitation(tx, user, invitedBy)
+  })
+  kickMailDelivery()
+  return { email: user.email }
 }
 
 export async function updateUser(id: number, body: UserUpdateBody, actorId: number) {

@@ -115,6 +115,32 @@ describe('invitations', () => {
     expect(unknown.body.message).toMatch(/expired or was already used/)
   })
 
+  it('sends a fresh invitation on request, voids the earlier link, and refuses once a password is set', async () => {
+    const { email, user, mail: first } = await invite(admin, 'Ines Carvalho')
+    const listed = (await admin.get('/api/users')).body.users.find((u: { id: number }) => u.id === user.id)
+    expect(listed.awaitingPassword).toBe(true)
+    const engineer = await signIn('engineer')
+    expect((await engineer.post(`/api/users/${user.id}/invitation`)).status).toBe(403)
+
+    const resent = await admin.post(`/api/users/${user.id}/invitation`)
+    expect(resent.status).toBe(200)
+    expect(resent.body.sent.email).toBe(email)
+    const mails = await waitForMail(m => sentTo(m, email) && /set a password/i.test(m.subject), { count: 2 })
+    const second = mails.find(m => linkToken(m.text) !== linkToken(first.text))!
+    expect(second).toBeDefined()
+
+    const old = await new ApiClient().post('/api/auth/password/set', { token: linkToken(first.text), password: 'first-link-password' })
+    expect(old.status).toBe(400)
+    expect((await new ApiClient().post('/api/auth/password/set', { token: linkToken(second.text), password: 'second-link-password' })).status).toBe(200)
+    expect((await admin.get('/api/users')).body.users.find((u: { id: number }) => u.id === user.id).awaitingPassword).toBe(false)
+
+    const refused = await admin.post(`/api/users/${user.id}/invitation`)
+    expect(refused.status).toBe(409)
+    expect(refused.body.message).toMatch(/already set a password/)
+    expect((await admin.post('/api/users/999999/invitation')).status).toBe(404)
+    expect((await admin.post('/api/users/abc/invitation')).status).toBe(400)
+  })
+
   it('lets one of two simultaneous uses of a link win', async () => {
     const { mail } = await invite(admin)
     const token = linkToken(mail.text)

@@ -56,6 +56,10 @@ test('the admin adds a user and sees them in the table', async ({ page }) => {
   await page.getByLabel('E-mail').fill('iris.brennan@eddyledger.test')
   await page.getByRole('button', { name: 'Add user' }).click()
   await expect(page.getByTestId('users-table')).toContainText('iris.brennan@eddyledger.test')
+  const row = page.getByTestId('users-table').getByRole('row').filter({ hasText: 'iris.brennan@eddyledger.test' })
+  await expect(row).toContainText('Invited')
+  await row.getByRole('button', { name: 'Resend invitation' }).click()
+  await expect(page.getByRole('status').filter({ hasText: 'A new invitation goes to iris.brennan@eddyledger.test' })).toBeVisible()
   await keepScreenshot(page, 'admin-users')
 })
 

@@ -1,0 +1,7 @@
+import { idParamSchema } from '#shared/schemas/common'
+
+export default defineEventHandler(async (event) => {
+  const { id } = await getValidatedRouterParams(event, zodValidator(idParamSchema))
+  const admin = await requireRole(event, 'admin')
+  return { sent: await resendInvitation(id, admin) }
+})
