@@ -42,8 +42,11 @@ export async function decisionOverview(query: OverviewQuery) {
   }).from(decisions).innerJoin(revisions, currentRevisionJoin).where(overviewWhere(query)).as('base')
 
   const n = sql<number>`count(*)::int`
-  const overBudget = sql<number>`(count(*) FILTER (WHERE ${base.coreHours} > ${base.budget}))::int`
-  const sumOf = (column: SQL.Aliased) => sql<number>`coalesce(sum(${column}), 0)::float8`.mapWith(Number)
+  // Compute counts the decisions that stand: a superseded one was replaced by its successor, whose
+  // cost is counted instead, so counting both would plan the same work twice.
+  const stands = sql`${base.status} <> 'superseded'`
+  const overBudget = sql<number>`(count(*) FILTER (WHERE ${base.coreHours} > ${base.budget} AND ${stands}))::int`
+  const sumOf = (column: SQL.Aliased) => sql<number>`coalesce(sum(${column}) FILTER (WHERE ${stands}), 0)::float8`.mapWith(Number)
   const countStatus = (status: DecisionStatus) => sql<number>`(count(*) FILTER (WHERE ${base.status} = ${status}))::int`
 
   const disagreed = db.select({

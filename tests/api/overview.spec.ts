@@ -92,17 +92,20 @@ function expectOverview(body: any, rows: Row[], projectsInScope: number[]) {
   for (const r of body.overrides.disagreedRules) expect(rules.get(r.rule)).toBe(r.count)
 
   const sum = (list: Row[], value: (r: Row) => number) => list.reduce((s, r) => s + value(r), 0)
-  closeTo(body.compute.coreHours, sum(rows, r => r.coreHours))
-  closeTo(body.compute.budgetCoreHours, sum(rows, r => r.budget))
-  expect(body.compute.overBudget).toBe(rows.filter(r => r.coreHours > r.budget).length)
+  // Compute counts the decisions that stand; a superseded one is counted through its successor.
+  const standing = rows.filter(r => r.status !== 'superseded')
+  closeTo(body.compute.coreHours, sum(standing, r => r.coreHours))
+  closeTo(body.compute.budgetCoreHours, sum(standing, r => r.budget))
+  expect(body.compute.overBudget).toBe(standing.filter(r => r.coreHours > r.budget).length)
   expect(body.compute.projects.map((p: any) => p.id).sort()).toEqual([...projectsInScope].sort())
   for (const p of body.compute.projects) {
     const mine = rows.filter(r => r.projectId === p.id)
+    const mineStanding = standing.filter(r => r.projectId === p.id)
     expect(p.decisions, p.code).toBe(mine.length)
     expect(p.overridden, p.code).toBe(mine.filter(r => r.status === 'overridden').length)
-    expect(p.overBudget, p.code).toBe(mine.filter(r => r.coreHours > r.budget).length)
-    closeTo(p.coreHours, sum(mine, r => r.coreHours))
-    closeTo(p.budgetCoreHours, sum(mine, r => r.budget))
+    expect(p.overBudget, p.code).toBe(mineStanding.filter(r => r.coreHours > r.budget).length)
+    closeTo(p.coreHours, sum(mineStanding, r => r.coreHours))
+    closeTo(p.budgetCoreHours, sum(mineStanding, r => r.budget))
   }
 }
 
@@ -120,7 +123,13 @@ beforeAll(async () => {
   // draft whose budget is far below what any approach costs.
   const approved = await createDraft(engineer, project['KB-102']!, { title: uniqueTitle('Overview approved') })
   const submitted = await act(engineer, `/api/decisions/${approved.id}/submit`, { version: approved.version })
-  await act(reviewer, `/api/decisions/${approved.id}/approve`, { version: submitted.version })
+  const signedOff = await act(reviewer, `/api/decisions/${approved.id}/approve`, { version: submitted.version })
+  // And one superseded by a new draft, so that compute must leave the replaced one out.
+  const superseded = await createDraft(engineer, project['KB-102']!, { title: uniqueTitle('Overview superseded') })
+  const supersededSubmitted = await act(engineer, `/api/decisions/${superseded.id}/submit`, { version: superseded.version })
+  const supersededApproved = await act(reviewer, `/api/decisions/${superseded.id}/approve`, { version: supersededSubmitted.version })
+  await act(engineer, `/api/decisions/${superseded.id}/supersede`, { version: supersededApproved.version }, 201)
+  expect(signedOff.status).toBe('approved')
   for (const caseInput of [CONDENSER_CASE, DUCT_CASE]) {
     const draft = await createDraft(engineer, project['KB-103']!, { caseInput, title: uniqueTitle('Overview override') })
     const inReview = await act(engineer, `/api/decisions/${draft.id}/submit`, { version: draft.version })
@@ -142,6 +151,7 @@ describe('GET /api/overview', () => {
     // The data can show what is counted: overrides with rules, and at least one over budget.
     expect(rows.filter(r => r.status === 'overridden').length).toBeGreaterThanOrEqual(3)
     expect(rows.some(r => r.coreHours > r.budget)).toBe(true)
+    expect(rows.some(r => r.status === 'superseded')).toBe(true)
     const res = await lead.get('/api/overview')
     expect(res.status, JSON.stringify(res.body)).toBe(200)
     expectOverview(res.body, rows, Object.values(project))
