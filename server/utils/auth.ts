@@ -50,8 +50,7 @@ export async function isProjectMember(projectId: number, userId: number): Promis
  */
 export async function requireProjectRead(event: H3Event, projectId: number) {
   const user = await requireUser(event)
-  const project = await useDb().query.projects.findFirst({ where: eq(tables.projects.id, projectId) })
-  if (!project) throw createError({ statusCode: 404, message: `Project ${projectId} does not exist` })
+  const project = await requireProject(projectId)
   if (!READS_ALL_PROJECTS.includes(user.role) && !(await isProjectMember(projectId, user.id))) {
     throw createError({ statusCode: 403, message: 'You are not a member of this project' })
   }
@@ -61,8 +60,7 @@ export async function requireProjectRead(event: H3Event, projectId: number) {
 /** Work inside a project: a member with one of the given roles. */
 export async function requireProjectMember(event: H3Event, projectId: number, roles: Role[] = ['engineer', 'reviewer']) {
   const user = await requireUser(event)
-  const project = await useDb().query.projects.findFirst({ where: eq(tables.projects.id, projectId) })
-  if (!project) throw createError({ statusCode: 404, message: `Project ${projectId} does not exist` })
+  const project = await requireProject(projectId)
   if (!roles.includes(user.role)) {
     throw createError({ statusCode: 403, message: `This needs the role ${roles.join(' or ')} in the project` })
   }
@@ -78,8 +76,7 @@ export async function requireProjectMember(event: H3Event, projectId: number, ro
  */
 export async function requireProjectDecisions(event: H3Event, projectId: number) {
   const user = await requireUser(event)
-  const project = await useDb().query.projects.findFirst({ where: eq(tables.projects.id, projectId) })
-  if (!project) throw createError({ statusCode: 404, message: `Project ${projectId} does not exist` })
+  const project = await requireProject(projectId)
   const isMember = await isProjectMember(projectId, user.id)
   const refusal = decisionReadRefusal(user, isMember)
   if (refusal) throw createError(refusal)

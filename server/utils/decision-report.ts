@@ -1,6 +1,5 @@
 // The PDF record of a decision, for QA to file: what was asked, what the engine advised, what the
 // reviewer decided, and the verified history, laid out in our own words with pdfkit's standard fonts.
-import { eq } from 'drizzle-orm'
 import { marked, type Token } from 'marked'
 import PDFDocument from 'pdfkit'
 import { APPROACH_LABELS, GENERAL_CAUTIONS, WALL_TREATMENT_LABELS, type ApproachId, type WallTreatment } from '../../shared/rules'
@@ -13,7 +12,7 @@ import { formatPercent, formatQuantity, formatSci, formatSig } from '../../app/u
 export async function loadDecisionReport(decisionId: number) {
   const decision = await readDecision(decisionId)
   const [project, events, chain, revision] = await Promise.all([
-    useDb().query.projects.findFirst({ where: eq(tables.projects.id, decision.projectId), columns: { id: true, code: true, name: true } }),
+    projectHeading(decision.projectId),
     listEvents(decisionId),
     verifyChain(useDb(), decisionId),
     readRevision(decisionId, decision.revision),

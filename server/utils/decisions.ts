@@ -265,11 +265,19 @@ export async function readRevision(decisionId: number, n: number) {
   }
 }
 
+/** The project line above a decision: id, code and name (the row exists: a foreign key). */
+export async function projectHeading(projectId: number) {
+  const project = await useDb().query.projects.findFirst({
+    where: eq(tables.projects.id, projectId), columns: { id: true, code: true, name: true },
+  })
+  return project!
+}
+
 /** Everything the decision page shows, with what the signed-in user may do. */
 export async function decisionDetail(decisionId: number, user: SessionUser, isMember: boolean) {
   const decision = await readDecision(decisionId)
   const [project, revisionList, events] = await Promise.all([
-    useDb().query.projects.findFirst({ where: eq(tables.projects.id, decision.projectId), columns: { id: true, code: true, name: true } }),
+    projectHeading(decision.projectId),
     listRevisions(decisionId),
     listEvents(decisionId),
   ])

@@ -44,10 +44,16 @@ export async function updateProject(id: number, body: ProjectUpdateBody) {
   return project
 }
 
+/** The project, or 404. */
+export async function requireProject(projectId: number) {
+  const project = await useDb().query.projects.findFirst({ where: eq(tables.projects.id, projectId) })
+  if (!project) throw createError({ statusCode: 404, message: `Project ${projectId} does not exist` })
+  return project
+}
+
 export async function addMember(projectId: number, userId: number) {
   const db = useDb()
-  const project = await db.query.projects.findFirst({ where: eq(tables.projects.id, projectId) })
-  if (!project) throw createError({ statusCode: 404, message: `Project ${projectId} does not exist` })
+  await requireProject(projectId)
   const user = await db.query.users.findFirst({ where: eq(tables.users.id, userId) })
   if (!user) throw createError({ statusCode: 404, message: `User ${userId} does not exist` })
   await db.insert(tables.projectMembers).values({ projectId, userId }).onConflictDoNothing()

@@ -85,24 +85,15 @@ export const WALL_TREATMENTS_BY_APPROACH: Readonly<Record<ApproachId, readonly W
   rans: ['resolved', 'wall-function'],
 }
 
+// Each approach's default is the first of its list.
+function firstOfEach<T>(lists: Record<ApproachId, readonly T[]>): Record<ApproachId, T> {
+  return Object.fromEntries(APPROACH_IDS.map(id => [id, lists[id][0]!])) as Record<ApproachId, T>
+}
+
 export function defaultWallTreatments(): Record<ApproachId, WallTreatment> {
-  return {
-    dns: WALL_TREATMENTS_BY_APPROACH.dns[0]!,
-    wrles: WALL_TREATMENTS_BY_APPROACH.wrles[0]!,
-    wmles: WALL_TREATMENTS_BY_APPROACH.wmles[0]!,
-    hybrid: WALL_TREATMENTS_BY_APPROACH.hybrid[0]!,
-    urans: WALL_TREATMENTS_BY_APPROACH.urans[0]!,
-    rans: WALL_TREATMENTS_BY_APPROACH.rans[0]!,
-  }
+  return firstOfEach(WALL_TREATMENTS_BY_APPROACH)
 }
 
 export function defaultModels(): Record<ApproachId, string> {
-  return {
-    dns: MODELS_BY_APPROACH.dns[0]!,
-    wrles: MODELS_BY_APPROACH.wrles[0]!,
-    wmles: MODELS_BY_APPROACH.wmles[0]!,
-    hybrid: MODELS_BY_APPROACH.hybrid[0]!,
-    urans: MODELS_BY_APPROACH.urans[0]!,
-    rans: MODELS_BY_APPROACH.rans[0]!,
-  }
+  return firstOfEach(MODELS_BY_APPROACH)
 }
