@@ -5,10 +5,20 @@ const slot = process.env.EDDY_BUILD_SLOT
 
 export default defineNuxtConfig({
   compatibilityDate: '2025-07-15',
-  ...(slot ? { buildDir: `.nuxt-${slot}`, nitro: { output: { dir: `.output-${slot}` } } } : {}),
+  ...(slot ? { buildDir: `.nuxt-${slot}` } : {}),
+  nitro: {
+    ...(slot ? { output: { dir: `.output-${slot}` } } : {}),
+    // The PDF record embeds these fonts (server/utils/report/fonts.ts); the tracer cannot see a path
+    // built at run time, so name them.
+    externals: {
+      traceInclude: ['DejaVuSans.ttf', 'DejaVuSans-Bold.ttf', 'DejaVuSans-Oblique.ttf', 'DejaVuSansMono.ttf']
+        .map(file => `node_modules/dejavu-fonts-ttf/ttf/${file}`),
+    },
+  },
   devtools: { enabled: false },
   telemetry: false,
-  modules: ['@pinia/nuxt', 'nuxt-auth-utils'],
+  modules: ['@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  eslint: { config: { stylistic: false } },
   css: ['~/assets/css/main.css'],
   vite: { plugins: [tailwindcss()] },
   app: {

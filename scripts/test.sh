@@ -2,7 +2,7 @@
 # npm test: the same set-up as npm start on a throwaway cluster (own folder and port, removed
 # after), then unit, API (real server + PostgreSQL + fake SMTP over HTTP) and browser tests.
 #   npm test               every suite
-#   npm test -- unit       one suite (types | unit | api | e2e), extra arguments go to its runner:
+#   npm test -- unit       one suite (types | lint | unit | api | e2e), extra arguments go to its runner:
 #   npm test -- api tests/api/auth.spec.ts
 source "$(dirname "$0")/lib/common.sh"
 
@@ -36,16 +36,18 @@ ensure_build
 
 # Type-checks app, server and shared code (vue-tsc through Nuxt); against .nuxt, so without a slot.
 run_types() { log "type check"; EDDY_BUILD_SLOT= npx nuxt typecheck; }
+run_lint() { log "lint"; [ -f .nuxt/eslint.config.mjs ] || EDDY_BUILD_SLOT= npx nuxt prepare >/dev/null; npx eslint "${@:-.}"; }
 run_unit() { log "unit tests"; npx vitest run --project unit "$@"; }
 run_api() { log "API tests (built server, PostgreSQL $PG_PORT)"; npx vitest run --project api "$@"; }
 run_e2e() { log "browser tests (chromium)"; E2E_PORT="$(free_port)" npx playwright test "$@"; }
 
 case "$SUITE" in
   types) run_types ;;
+  lint) run_lint "$@" ;;
   unit) run_unit "$@" ;;
   api) run_api "$@" ;;
   e2e) run_e2e "$@" ;;
-  all) run_types; run_unit; run_api; run_e2e ;;
-  *) echo "unknown suite: $SUITE (types | unit | api | e2e | all)"; exit 2 ;;
+  all) run_types; run_lint; run_unit; run_api; run_e2e ;;
+  *) echo "unknown suite: $SUITE (types | lint | unit | api | e2e | all)"; exit 2 ;;
 esac
 log "all requested suites passed"

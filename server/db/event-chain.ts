@@ -1,19 +1,17 @@
 // The decision record's hash chain and the hash of a case input. Relative imports only: used by
-// the server (server/utils/decision-events.ts) and by the demo seed under plain Node.
+// the server (server/utils/decisions/events.ts) and by the demo seed under plain Node.
 import { createHash } from 'node:crypto'
 import canonicalize from 'canonicalize'
 import { desc, eq, sql } from 'drizzle-orm'
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres'
 import type { Role } from '../../shared/utils/roles'
 import * as schema from './schema'
+import type { DbOrTx } from './types'
 
 // Each event's hash is sha256(previous hash + canonical event), the canonical form being RFC 8785
 // JSON of the fields below. The first event chains onto GENESIS_HASH.
 export const GENESIS_HASH = '0'.repeat(64)
 
 export type DecisionEventType = (typeof schema.EVENT_TYPES)[number]
-type ChainDb = NodePgDatabase<typeof schema>
-export type DbOrTx = ChainDb | Parameters<Parameters<ChainDb['transaction']>[0]>[0]
 
 export type HashedFields = {
   decisionId: number

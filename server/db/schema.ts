@@ -4,9 +4,11 @@ import { sql } from 'drizzle-orm'
 import {
   bigserial, boolean, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core'
+import type { Advice, CaseInput } from '../../shared/rules'
+import type { DecisionEventPayload, DecisionOverride } from '../../shared/types/decisions'
+import { DECISION_STATUSES } from '../../shared/utils/decision-status'
 import { ROLES } from '../../shared/utils/roles'
 
-export const DECISION_STATUSES = ['draft', 'in_review', 'approved', 'overridden', 'superseded'] as const
 export const EVENT_TYPES = [
   'created', 'revised', 'submitted', 'approved', 'overridden', 'changes_requested', 'commented', 'superseded',
 ] as const
@@ -66,7 +68,7 @@ export const decisions = pgTable('decisions', {
   currentRevision: integer('current_revision').notNull().default(1),
   authorId: integer('author_id').notNull().references(() => users.id),
   // The reviewer's chosen treatment when overridden: { approach, model, wallTreatment, yPlusTarget, wall, comment, reviewer }.
-  override: jsonb('override'),
+  override: jsonb('override').$type<DecisionOverride>(),
   supersedesId: integer('supersedes_id'),
   supersededById: integer('superseded_by_id'),
   ...timestamps,
@@ -77,8 +79,8 @@ export const decisionRevisions = pgTable('decision_revisions', {
   id: serial('id').primaryKey(),
   decisionId: integer('decision_id').notNull().references(() => decisions.id),
   revision: integer('revision').notNull(),
-  caseInput: jsonb('case_input').notNull(),
-  advice: jsonb('advice').notNull(),
+  caseInput: jsonb('case_input').$type<CaseInput>().notNull(),
+  advice: jsonb('advice').$type<Advice>().notNull(),
   notes: text('notes').notNull().default(''),
   inputHash: text('input_hash').notNull(),
   rulesetId: text('ruleset_id').notNull(),
@@ -96,7 +98,7 @@ export const decisionEvents = pgTable('decision_events', {
   type: eventTypeEnum('type').notNull(),
   actorId: integer('actor_id').notNull().references(() => users.id),
   actorRole: roleEnum('actor_role').notNull(),
-  payload: jsonb('payload').notNull().default({}),
+  payload: jsonb('payload').$type<DecisionEventPayload>().notNull().default({}),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull(),
   prevHash: text('prev_hash').notNull(),
   hash: text('hash').notNull(),

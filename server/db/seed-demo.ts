@@ -2,7 +2,7 @@
 // its own. Relative imports only: run by scripts/seed.ts under plain Node.
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres'
 import { advise, caseInputSchema, type CaseInputDraft } from '../../shared/rules'
-import { changeDecision, insertDecision, overrideRecord, reviseDecisionRecord } from './decision-record'
+import { changeDecision, insertDecision, overrideRecord, reviseDecisionRecord } from '../utils/decisions/record'
 import { appendChainedEvent } from './event-chain'
 import * as schema from './schema'
 

@@ -1,9 +1,10 @@
-import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres'
+import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import * as schema from '../db/schema'
+import type { Db } from '../db/types'
 
 export { schema as tables }
-export type Db = NodePgDatabase<typeof schema>
+export type { Db, DbOrTx } from '../db/types'
 
 let db: Db | undefined
 

@@ -1,6 +1,6 @@
 // The QA audit of the decision record: filters, and pages small enough to check every chain shown.
 import { z } from 'zod'
-import { DECISION_STATUSES } from './decisions'
+import { DECISION_STATUSES } from '../utils/decision-status'
 import { projectFilterSchema } from './overview'
 
 export const AUDIT_MAX_PAGE_SIZE = 50

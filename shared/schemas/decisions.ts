@@ -10,18 +10,7 @@ import {
   WALL_TREATMENTS_BY_APPROACH,
   caseInputSchema,
 } from '../rules'
-
-// Same list as the decision_status enum in server/db/schema.ts (a unit test keeps them equal).
-export const DECISION_STATUSES = ['draft', 'in_review', 'approved', 'overridden', 'superseded'] as const
-export type DecisionStatus = (typeof DECISION_STATUSES)[number]
-
-export const DECISION_STATUS_LABELS: Record<DecisionStatus, string> = {
-  draft: 'Draft',
-  in_review: 'In review',
-  approved: 'Approved',
-  overridden: 'Overridden',
-  superseded: 'Superseded',
-}
+import { DECISION_STATUSES } from '../utils/decision-status'
 
 // A review comment must say why: a sentence, not a tick.
 export const MIN_REVIEW_COMMENT = 15

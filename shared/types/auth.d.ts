@@ -1,13 +1,9 @@
-import type { Role } from '../utils/roles'
+import type { SessionUser } from './session'
 
-// What the sealed session cookie carries; the role is re-read from the database on every request.
+// The sealed session cookie carries the SessionUser shape (shared/types/session.ts).
 declare module '#auth-utils' {
-  interface User {
-    id: number
-    email: string
-    name: string
-    role: Role
-  }
+  // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+  interface User extends SessionUser {}
 }
 
 export {}

@@ -4,8 +4,9 @@ import { createHash } from 'node:crypto'
 import canonicalize from 'canonicalize'
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { advise } from '../../shared/rules'
-import { ApiClient, signIn } from '../support/api-client'
+import { advise } from '#shared/rules'
+import type { ApiClient} from '../support/api-client';
+import { signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, tamperWithEvent } from '../support/decisions'
 
 type ApiEvent = {

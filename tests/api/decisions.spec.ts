@@ -3,8 +3,9 @@
 import { createHash } from 'node:crypto'
 import canonicalize from 'canonicalize'
 import { beforeAll, describe, expect, it } from 'vitest'
-import { advise, caseInputSchema, ENGINE_VERSION, RULESET } from '../../shared/rules'
-import { ApiClient, signIn } from '../support/api-client'
+import { advise, caseInputSchema, ENGINE_VERSION, RULESET } from '#shared/rules'
+import type { ApiClient} from '../support/api-client';
+import { signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, createDraft, projectIds, uniqueTitle } from '../support/decisions'
 
 // RFC 8785 canonical JSON hashed with SHA-256 (FIPS 180-4), computed here independently of the server.

@@ -4,7 +4,7 @@ import { createHash } from 'node:crypto'
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient, demoEmail, signIn } from '../support/api-client'
-import { DEMO_PASSWORD, freePort, startServer } from '../support/test-server'
+import { freePort, startServer } from '../support/test-server'
 
 type Message = { id: string; subject: string; text: string; to: { address: string }[] }
 

@@ -2,7 +2,7 @@
 // through the decision API (the engine's advice and the reviewer's override as stored), not from
 // the overview's own SQL.
 import { beforeAll, describe, expect, it } from 'vitest'
-import { MODELS_BY_APPROACH, WALL_TREATMENTS_BY_APPROACH, type ApproachId } from '../../shared/rules'
+import { MODELS_BY_APPROACH, WALL_TREATMENTS_BY_APPROACH, type ApproachId } from '#shared/rules'
 import { type ApiClient, signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, uniqueTitle } from '../support/decisions'
 

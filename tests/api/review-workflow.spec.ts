@@ -2,8 +2,9 @@
 // status, the transitions' results, optimistic concurrency, the queue, and the queued notices.
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { advise, caseInputSchema, wallFor } from '../../shared/rules'
-import { ApiClient, signIn } from '../support/api-client'
+import { advise, caseInputSchema, wallFor } from '#shared/rules'
+import type { ApiClient} from '../support/api-client';
+import { signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, uniqueTitle } from '../support/decisions'
 
 type Decision = { id: number; version: number; status: string; [key: string]: any }

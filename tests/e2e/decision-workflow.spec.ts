@@ -1,7 +1,7 @@
 import { expect, test, type Page } from '@playwright/test'
 import { advise } from '../../shared/rules'
 import { toSI } from '../../shared/units'
-import { formatSci } from '../../app/utils/format'
+import { formatSci } from '../../shared/utils/format'
 import { keepScreenshot, signInAs } from '../support/e2e'
 
 // Our own scenario: the Kestrel Bay ferry hull (KB-101) at a second service speed, typed in

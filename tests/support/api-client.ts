@@ -2,9 +2,9 @@
 import { inject } from 'vitest'
 import { DEMO_PASSWORD } from './test-server'
 
-export type ApiResponse<T = any> = { status: number; body: T; headers: Headers }
-
 import { randomInt } from 'node:crypto'
+
+export type ApiResponse<T = any> = { status: number; body: T; headers: Headers }
 
 // A random block per test file, so that files never share a limiter address.
 const block = [randomInt(1, 255), randomInt(0, 255)]

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { advise } from '../../../../shared/rules'
+import { advise } from '#shared/rules'
 import {
   caseFormValuesFrom,
   convertQuantityValue,
@@ -7,7 +7,7 @@ import {
   formPathFor,
   toCaseInputDraft,
   validateCaseForm,
-} from '../../../../shared/schemas/case-form'
+} from '#shared/schemas/case-form'
 
 describe('the questionnaire values and the engine input', () => {
   it('the defaults are air at 20 °C and 101.325 kPa, 1 % intensity, growth ratio 1.2 (ISO 2533 standard atmosphere pressure)', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { convertUnit, fromSI, tidy, toSI } from '../../../../shared/units/convert'
-import { QUANTITY_KINDS, UNIT_CATALOGUE, UNIT_SYSTEMS, defaultUnit, isUnitOf } from '../../../../shared/units/catalogue'
+import { convertUnit, fromSI, tidy, toSI } from '#shared/units/convert'
+import { QUANTITY_KINDS, UNIT_CATALOGUE, UNIT_SYSTEMS, defaultUnit, isUnitOf } from '#shared/units/catalogue'
 
 // Conversion factors from NIST Special Publication 811 (2008 edition), appendix B.8 / B.9,
 // "Guide for the Use of the International System of Units", unless noted otherwise.
@@ -71,6 +71,8 @@ describe('round trips and the catalogue', () => {
   })
   it('tidy removes float noise but keeps the value', () => {
     expect(tidy(67.99999999999997)).toBe(68)
+    // The literal is the float an ft -> m conversion gives, noise digits and all.
+    // eslint-disable-next-line no-loss-of-precision
     expect(tidy(0.30480000000000004)).toBe(0.3048)
   })
 })

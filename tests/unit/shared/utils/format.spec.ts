@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { formatDateTime, formatDuration, formatPercent, formatQuantity, formatSci, formatSig } from '../../../../app/utils/format'
+import { formatDateTime, formatDuration, formatPercent, formatQuantity, formatSci, formatSig } from '#shared/utils/format'
 
 // Presentation rules of our own (common practice, no source): three significant figures,
 // scientific notation for the very large and very small, units beside every value.

@@ -1,5 +1,5 @@
 /** What the questionnaire calls each choice, and the help beside each field (our own words). */
-import type { Quantity } from '#shared/rules'
+import type { Quantity } from '../rules'
 
 export const REGIME_LABELS = { external: 'External flow', internal: 'Internal flow' } as const
 

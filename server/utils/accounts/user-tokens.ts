@@ -2,7 +2,11 @@ import { createHash, randomBytes } from 'node:crypto'
 import type { H3Event } from 'h3'
 import { and, eq, isNull, sql } from 'drizzle-orm'
 import { ROLE_LABELS } from '#shared/utils/roles'
-import type { DbOrTx } from './decision-events'
+import type { DbOrTx } from '../../db/types'
+import { findUserByEmail } from './lookup'
+import { assertNotLocked, loginKeys, recordLoginFailure } from '../auth/login-limiter'
+import { MAIL_CAUTIONS, enqueueMail, kickMailDelivery } from '../mail/outbox'
+import { tables, useDb } from '../db'
 
 // Single-use links for setting a password: an invitation (72 h) or a reset (1 h). Only the sha256 of
 // the token is stored, so a copy of the database cannot be turned into working links.

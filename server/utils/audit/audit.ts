@@ -2,9 +2,10 @@
 // check of its hash chain, as a page for the screen or as all rows for a CSV export.
 import { and, asc, count, desc, eq, inArray, sql } from 'drizzle-orm'
 import type { AuditFilter, AuditListQuery } from '#shared/schemas/audit'
-import { DECISION_STATUS_LABELS } from '#shared/schemas/decisions'
-import { checkChain } from '../db/event-chain'
-import { summaryQuery, toSummary } from './decisions'
+import { DECISION_STATUS_LABELS } from '#shared/utils/decision-status'
+import { checkChain } from '../../db/event-chain'
+import { summaryQuery, toSummary } from '../decisions/queries'
+import { tables, useDb } from '../db'
 
 const decisions = tables.decisions
 const revisions = tables.decisionRevisions

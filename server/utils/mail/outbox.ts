@@ -1,6 +1,8 @@
 import nodemailer, { type Transporter } from 'nodemailer'
+import { notFound } from '../http/errors'
 import { and, desc, eq, sql } from 'drizzle-orm'
-import type { DbOrTx } from './decision-events'
+import type { DbOrTx } from '../../db/types'
+import { tables, useDb } from '../db'
 
 // Outgoing mail goes through the mail_outbox table: a row is written inside the transaction of the
 // action that causes it, and delivered after the commit by deliverDueMail (kicked by the action and
@@ -185,7 +187,7 @@ export async function retryMail(id: number) {
     .returning({ id: m.id, status: m.status })
   if (!row) {
     const exists = await useDb().query.mailOutbox.findFirst({ where: eq(m.id, id) })
-    if (!exists) throw createError({ statusCode: 404, message: `Message ${id} does not exist` })
+    if (!exists) throw notFound(`Message ${id} does not exist`)
     throw createError({
       statusCode: 409,
       message: exists.status === 'sent' ? 'This message was already sent' : 'This message is still being retried on its own',

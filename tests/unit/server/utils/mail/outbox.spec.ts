@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { MAX_ATTEMPTS, retryDelaySeconds } from '../../../../server/utils/mail'
+import { MAX_ATTEMPTS, retryDelaySeconds } from '../../../../../server/utils/mail/outbox'
 
 // Exponential backoff with a cap: common practice, no source.
 describe('retryDelaySeconds', () => {

@@ -1,7 +1,10 @@
 import { and, asc, eq, inArray, sql } from 'drizzle-orm'
+import { notFound } from '../http/errors'
 import type { ProjectCreateBody, ProjectUpdateBody } from '#shared/schemas/projects'
 import { READS_ALL_PROJECTS } from '#shared/utils/roles'
-import type { SessionUser } from './auth'
+import type { SessionUser } from '#shared/types/session'
+import { publicUserColumns } from '../accounts/users'
+import { tables, useDb } from '../db'
 
 const memberCount = sql<number>`(SELECT count(*)::int FROM project_members pm WHERE pm.project_id = ${tables.projects.id})`
 
@@ -40,14 +43,14 @@ export async function updateProject(id: number, body: ProjectUpdateBody) {
   if (body.code) await assertCodeFree(body.code, id)
   const [project] = await useDb().update(tables.projects).set({ ...body, updatedAt: new Date() })
     .where(eq(tables.projects.id, id)).returning()
-  if (!project) throw createError({ statusCode: 404, message: `Project ${id} does not exist` })
+  if (!project) throw notFound(`Project ${id} does not exist`)
   return project
 }
 
 /** The project, or 404. */
 export async function requireProject(projectId: number) {
   const project = await useDb().query.projects.findFirst({ where: eq(tables.projects.id, projectId) })
-  if (!project) throw createError({ statusCode: 404, message: `Project ${projectId} does not exist` })
+  if (!project) throw notFound(`Project ${projectId} does not exist`)
   return project
 }
 
@@ -55,7 +58,7 @@ export async function addMember(projectId: number, userId: number) {
   const db = useDb()
   await requireProject(projectId)
   const user = await db.query.users.findFirst({ where: eq(tables.users.id, userId) })
-  if (!user) throw createError({ statusCode: 404, message: `User ${userId} does not exist` })
+  if (!user) throw notFound(`User ${userId} does not exist`)
   await db.insert(tables.projectMembers).values({ projectId, userId }).onConflictDoNothing()
   return listMembers(projectId)
 }
@@ -64,6 +67,6 @@ export async function removeMember(projectId: number, userId: number) {
   const removed = await useDb().delete(tables.projectMembers)
     .where(and(eq(tables.projectMembers.projectId, projectId), eq(tables.projectMembers.userId, userId)))
     .returning()
-  if (!removed.length) throw createError({ statusCode: 404, message: `User ${userId} is not a member of project ${projectId}` })
+  if (!removed.length) throw notFound(`User ${userId} is not a member of project ${projectId}`)
   return listMembers(projectId)
 }

@@ -1,10 +1,17 @@
 import { and, eq } from 'drizzle-orm'
-import type { Advice, CaseInput } from '#shared/rules'
+import { conflict, notFound } from '../http/errors'
 import type { OverrideBody } from '#shared/schemas/decisions'
-import { changeDecision, insertDecision, overrideRecord, type DecisionStatus } from '../db/decision-record'
-import type { SessionUser } from './auth'
-import type { DbOrTx } from './decision-events'
-import type { DecisionNoticeType } from './notices'
+import type { DecisionStatus } from '#shared/utils/decision-status'
+import { changeDecision, insertDecision, overrideRecord } from './record'
+import { readDecision, findDecision } from './queries'
+import { throwConflict } from './workflow'
+import { appendEvent } from './events'
+import { queueDecisionNotice } from '../mail/notices'
+import { kickMailDelivery } from '../mail/outbox'
+import type { SessionUser } from '#shared/types/session'
+import type { DbOrTx } from '../../db/types'
+import type { DecisionNoticeType } from '../mail/notices'
+import { tables, useDb } from '../db'
 
 // The review workflow's transitions. Each one is a conditional UPDATE (the version the client saw
 // and an allowed status) plus its chained event and its mail, in one transaction; the mail is
@@ -68,8 +75,8 @@ async function currentRevision(db: DbOrTx, decisionId: number) {
       eq(tables.decisions.currentRevision, tables.decisionRevisions.revision),
     ))
     .where(eq(tables.decisions.id, decisionId))
-  if (!row) throw createError({ statusCode: 404, message: `Decision ${decisionId} does not exist` })
-  return row as { caseInput: CaseInput; advice: Advice; notes: string }
+  if (!row) throw notFound(`Decision ${decisionId} does not exist`)
+  return row
 }
 
 /**
@@ -99,9 +106,9 @@ export async function overrideDecision(decisionId: number, body: OverrideBody, u
 export async function supersedeDecision(decisionId: number, body: { version: number; title?: string }, user: SessionUser) {
   return useDb().transaction(async (tx) => {
     const old = await findDecision(decisionId, tx)
-    if (!old) throw createError({ statusCode: 404, message: `Decision ${decisionId} does not exist` })
+    if (!old) throw notFound(`Decision ${decisionId} does not exist`)
     const project = await tx.query.projects.findFirst({ where: eq(tables.projects.id, old.projectId) })
-    if (project?.archived) throw createError({ statusCode: 409, message: `Project ${project.code} is archived; it takes no new decisions` })
+    if (project?.archived) throw conflict(`Project ${project.code} is archived; it takes no new decisions`)
     const { caseInput, notes } = await currentRevision(tx, decisionId)
     const created = await insertDecision(tx, {
       projectId: old.projectId, title: body.title ?? old.title, caseInput, notes, author: user, supersedesId: old.id,

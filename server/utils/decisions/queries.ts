@@ -1,123 +1,14 @@
+// Reading the decision record: one decision, its revisions and events, lists and the review queue.
 import { and, asc, count, desc, eq, inArray, ne, sql, type SQL } from 'drizzle-orm'
-import type { Advice, CaseInput } from '#shared/rules'
-import {
-  DECISION_STATUS_LABELS,
-  type DecisionCreateBody,
-  type DecisionListQuery,
-  type DecisionReviseBody,
-  type DecisionStatus,
-} from '#shared/schemas/decisions'
-import { MEMBER_ROLES, ROLE_LABELS, type Role } from '#shared/utils/roles'
-import { insertDecision, reviseDecisionRecord, type DecisionRow } from '../db/decision-record'
-import type { SessionUser } from './auth'
-import type { DbOrTx } from './decision-events'
-
-export type DecisionAction = 'revise' | 'submit' | 'approve' | 'override' | 'request-changes' | 'supersede' | 'comment'
-type Refusal = { statusCode: 403 | 409; message: string }
-
-// Auditors and leads read every project's decisions; administrators manage accounts and projects
-// but are not given decision contents.
-const READS_ALL_DECISIONS: readonly Role[] = ['auditor', 'lead']
-
-const statusWord = (status: DecisionStatus) => DECISION_STATUS_LABELS[status].toLowerCase()
-
-export function readsDecisions(user: SessionUser, isMember: boolean) {
-  return READS_ALL_DECISIONS.includes(user.role) || (MEMBER_ROLES.includes(user.role) && isMember)
-}
-
-export function decisionReadRefusal(user: SessionUser, isMember: boolean): Refusal | null {
-  if (readsDecisions(user, isMember)) return null
-  if (user.role === 'admin') {
-    return { statusCode: 403, message: 'Administrators manage accounts and projects; decisions are read by project members, auditors and leads' }
-  }
-  return { statusCode: 403, message: 'You are not a member of this project' }
-}
-
-const REVIEW_VERBS: Partial<Record<DecisionAction, string>> = {
-  approve: 'approved',
-  override: 'overridden',
-  'request-changes': 'sent back for changes',
-}
-
-/**
- * Why a user may not take an action on a decision (403 for who they are, 409 for the state the
- * decision is in), or null when they may. The route guards and the permissions shown on the
- * decision page both come from here.
- */
-export function decisionRefusal(
-  user: SessionUser,
-  decision: Pick<DecisionRow, 'authorId' | 'status'>,
-  isMember: boolean,
-  action: DecisionAction,
-): Refusal | null {
-  const read = decisionReadRefusal(user, isMember)
-  if (read) return read
-  if (!MEMBER_ROLES.includes(user.role) || !isMember) {
-    return { statusCode: 403, message: `${ROLE_LABELS[user.role]}s read decisions; only engineers and reviewers of the project act on them` }
-  }
-  const own = decision.authorId === user.id
-  const status = decision.status
-  switch (action) {
-    case 'revise':
-    case 'submit': {
-      const doing = action === 'revise' ? 'revise' : 'submit'
-      if (!own) return { statusCode: 403, message: `Only the author may ${doing} this decision` }
-      if (status !== 'draft') {
-        return { statusCode: 409, message: `Only a draft can be ${doing === 'revise' ? 'revised' : 'submitted'}; this decision is ${statusWord(status)}` }
-      }
-      return null
-    }
-    case 'approve':
-    case 'override':
-    case 'request-changes':
-      if (user.role !== 'reviewer') return { statusCode: 403, message: 'Only a senior reviewer can approve, override or send back a decision' }
-      if (own) return { statusCode: 403, message: 'Nobody reviews their own decision: another reviewer of the project must' }
-      if (status !== 'in_review') {
-        return { statusCode: 409, message: `Only a decision in review can be ${REVIEW_VERBS[action]}; this one is ${statusWord(status)}` }
-      }
-      return null
-    case 'supersede':
-      if (status !== 'approved' && status !== 'overridden') {
-        return { statusCode: 409, message: `Only an approved or overridden decision can be superseded; this one is ${statusWord(status)}` }
-      }
-      return null
-    case 'comment':
-      return null
-  }
-}
-
-export function decisionPermissions(user: SessionUser, decision: Pick<DecisionRow, 'authorId' | 'status'>, isMember: boolean) {
-  const may = (action: DecisionAction) => decisionRefusal(user, decision, isMember, action) === null
-  return {
-    canRevise: may('revise'),
-    canSubmit: may('submit'),
-    canReview: may('approve'),
-    canSupersede: may('supersede'),
-    canComment: may('comment'),
-  }
-}
+import type { DecisionListQuery } from '#shared/schemas/decisions'
+import type { SessionUser } from '#shared/types/session'
+import type { DbOrTx } from '../../db/types'
+import { notFound } from '../http/errors'
+import { decisionPermissions } from './policy'
+import { tables, useDb } from '../db'
 
 export function findDecision(id: number, db: DbOrTx = useDb()) {
   return db.query.decisions.findFirst({ where: eq(tables.decisions.id, id) })
-}
-
-/**
- * After a conditional update matched nothing: say why, from the decision as it is now. A stale
- * version is the usual reason (someone acted first); else its status no longer allows the action.
- */
-export async function throwConflict(db: DbOrTx, decisionId: number, version: number, allowed: readonly DecisionStatus[], doing: string): Promise<never> {
-  const row = await findDecision(decisionId, db)
-  if (!row) throw createError({ statusCode: 404, message: `Decision ${decisionId} does not exist` })
-  if (row.version !== version) {
-    throw createError({
-      statusCode: 409,
-      message: `This decision has changed since you loaded it (it is at version ${row.version}, you sent ${version}); reload it and try again`,
-    })
-  }
-  throw createError({
-    statusCode: 409,
-    message: `Only a decision that is ${allowed.map(statusWord).join(' or ')} can be ${doing}; this one is ${statusWord(row.status)}`,
-  })
 }
 
 // ---- reading
@@ -125,17 +16,6 @@ export async function throwConflict(db: DbOrTx, decisionId: number, version: num
 const revisions = tables.decisionRevisions
 const decisions = tables.decisions
 export const currentRevisionJoin = and(eq(revisions.decisionId, decisions.id), eq(revisions.revision, decisions.currentRevision))
-
-export type DecisionOverride = {
-  approach: string
-  model: string
-  wallTreatment: string
-  yPlusTarget: number
-  wall: Advice['wall']
-  comment: string
-  disagreedRules: string[]
-  reviewer: { id: number; name: string }
-}
 
 export async function readDecision(id: number, db: DbOrTx = useDb()) {
   const [row] = await db.select({
@@ -146,7 +26,7 @@ export async function readDecision(id: number, db: DbOrTx = useDb()) {
     .innerJoin(revisions, currentRevisionJoin)
     .innerJoin(tables.users, eq(tables.users.id, decisions.authorId))
     .where(eq(decisions.id, id))
-  if (!row) throw createError({ statusCode: 404, message: `Decision ${id} does not exist` })
+  if (!row) throw notFound(`Decision ${id} does not exist`)
   const { decision: d, revision: r } = row
   return {
     id: d.id,
@@ -155,11 +35,11 @@ export async function readDecision(id: number, db: DbOrTx = useDb()) {
     status: d.status,
     version: d.version,
     revision: d.currentRevision,
-    caseInput: r.caseInput as CaseInput,
-    advice: r.advice as Advice,
+    caseInput: r.caseInput,
+    advice: r.advice,
     notes: r.notes,
     author: row.author,
-    override: (d.override ?? null) as DecisionOverride | null,
+    override: d.override ?? null,
     supersedesId: d.supersedesId,
     supersededById: d.supersededById,
     createdAt: d.createdAt,
@@ -249,12 +129,12 @@ export async function readRevision(decisionId: number, n: number) {
   const [row] = await useDb().select({ revision: revisions, createdById: tables.users.id, createdByName: tables.users.name })
     .from(revisions).innerJoin(tables.users, eq(tables.users.id, revisions.createdBy))
     .where(and(eq(revisions.decisionId, decisionId), eq(revisions.revision, n)))
-  if (!row) throw createError({ statusCode: 404, message: `Decision ${decisionId} has no revision ${n}` })
+  if (!row) throw notFound(`Decision ${decisionId} has no revision ${n}`)
   const r = row.revision
   return {
     revision: r.revision,
-    caseInput: r.caseInput as CaseInput,
-    advice: r.advice as Advice,
+    caseInput: r.caseInput,
+    advice: r.advice,
     notes: r.notes,
     inputHash: r.inputHash,
     rulesetId: r.rulesetId,
@@ -290,24 +170,3 @@ export async function decisionDetail(decisionId: number, user: SessionUser, isMe
   }
 }
 
-// ---- writing
-
-export async function createDecision(project: { id: number; code: string; archived: boolean }, body: DecisionCreateBody, user: SessionUser) {
-  if (project.archived) throw createError({ statusCode: 409, message: `Project ${project.code} is archived; it takes no new decisions` })
-  return useDb().transaction(async (tx) => {
-    const decision = await insertDecision(tx, {
-      projectId: project.id, title: body.title, caseInput: body.caseInput, notes: body.notes, author: user,
-    })
-    return readDecision(decision.id, tx)
-  })
-}
-
-export async function reviseDecision(decisionId: number, body: DecisionReviseBody, user: SessionUser) {
-  return useDb().transaction(async (tx) => {
-    const row = await reviseDecisionRecord(tx, {
-      decisionId, version: body.version, caseInput: body.caseInput, notes: body.notes, title: body.title, actor: user,
-    })
-    if (!row) await throwConflict(tx, decisionId, body.version, ['draft'], 'revised')
-    return readDecision(decisionId, tx)
-  })
-}

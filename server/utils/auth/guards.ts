@@ -1,41 +1,15 @@
 import type { H3Event } from 'h3'
+import { notFound } from '../http/errors'
 import { and, eq } from 'drizzle-orm'
 import type { Role } from '#shared/utils/roles'
 import { READS_ALL_PROJECTS } from '#shared/utils/roles'
-import type { DecisionAction } from './decisions'
+import { decisionReadRefusal, decisionRefusal, type DecisionAction } from '../decisions/policy'
+import { findDecision } from '../decisions/queries'
+import { requireProject } from '../projects/projects'
+import { requireUser } from './session'
+import { tables, useDb } from '../db'
 
-export type SessionUser = { id: number; email: string; name: string; role: Role }
-
-/**
- * The signed-in user, re-read from the database so that a role change or a deactivation takes
- * effect on the next request, not when the cookie expires.
- */
-export async function requireUser(event: H3Event): Promise<SessionUser> {
-  if (event.context.user) return event.context.user as SessionUser
-  const session = await getUserSession(event)
-  const id = session.user?.id
-  if (!id) throw createError({ statusCode: 401, message: 'Sign in to continue' })
-  const row = await useDb().query.users.findFirst({ where: eq(tables.users.id, id) })
-  if (!row || !row.active) {
-    await clearUserSession(event)
-    throw createError({ statusCode: 401, message: 'Your session has ended; sign in again' })
-  }
-  const user: SessionUser = { id: row.id, email: row.email, name: row.name, role: row.role }
-  const seen = session.user!
-  if (seen.role !== user.role || seen.name !== user.name || seen.email !== user.email) {
-    await setUserSession(event, { user })
-  }
-  event.context.user = user
-  return user
-}
-
-export async function requireRole(event: H3Event, ...roles: Role[]): Promise<SessionUser> {
-  const user = await requireUser(event)
-  if (!roles.includes(user.role)) {
-    throw createError({ statusCode: 403, message: `This needs the role ${roles.join(' or ')}` })
-  }
-  return user
-}
+// Who may read or act on a project or a decision: the guards every route calls after validating.
 
 export async function isProjectMember(projectId: number, userId: number): Promise<boolean> {
   const row = await useDb().query.projectMembers.findFirst({
@@ -90,7 +64,7 @@ export async function requireProjectDecisions(event: H3Event, projectId: number)
 export async function requireDecisionAccess(event: H3Event, decisionId: number, action: DecisionAction | 'read' = 'read') {
   const user = await requireUser(event)
   const decision = await findDecision(decisionId)
-  if (!decision) throw createError({ statusCode: 404, message: `Decision ${decisionId} does not exist` })
+  if (!decision) throw notFound(`Decision ${decisionId} does not exist`)
   const isMember = await isProjectMember(decision.projectId, user.id)
   const refusal = action === 'read' ? decisionReadRefusal(user, isMember) : decisionRefusal(user, decision, isMember, action)
   if (refusal) throw createError(refusal)

@@ -1,13 +1,10 @@
+// The server's entry points to the decision record's hash chain (server/db/event-chain.ts, which
+// plain Node can load too, so the demo seed writes the same chain).
 import { asc, eq } from 'drizzle-orm'
-import {
-  GENESIS_HASH, appendChainedEvent, checkChain, eventHash, type DbOrTx, type DecisionEventType,
-} from '../db/event-chain'
-import type { SessionUser } from './auth'
-
-// The chain itself lives in server/db/event-chain.ts (plain Node can load it, so the demo seed
-// writes the same chain); these are the server's entry points.
-export { GENESIS_HASH, eventHash }
-export type { DbOrTx, DecisionEventType }
+import type { SessionUser } from '#shared/types/session'
+import { appendChainedEvent, checkChain, type DecisionEventType } from '../../db/event-chain'
+import type { DbOrTx } from '../../db/types'
+import { tables } from '../db'
 
 /** Appends one event to a decision's chain inside the caller's transaction. */
 export function appendEvent(tx: DbOrTx, input: {

@@ -1,15 +1,16 @@
 // The writes of the decision record: a decision with its first revision, a revision, a status
 // change. Each step is a row change plus its chained event, inside the caller's transaction.
 // Relative imports only, so the demo seed writes its decisions through the same steps. Guards
-// (who may do what) and error messages are the server's (server/utils/decisions.ts, review.ts).
+// (who may do what) and error messages are the server's (policy.ts, workflow.ts, review.ts beside it).
 import { and, eq, inArray, sql } from 'drizzle-orm'
-import { advise, caseInputSchema, wallFor, type Advice, type ApproachId, type CaseInput, type CaseInputDraft, type WallTreatment } from '../../shared/rules'
-import type { Role } from '../../shared/utils/roles'
-import { appendChainedEvent, canonicalHash, type DbOrTx, type DecisionEventType } from './event-chain'
-import * as schema from './schema'
+import { advise, caseInputSchema, wallFor, type Advice, type ApproachId, type CaseInput, type CaseInputDraft, type WallTreatment } from '../../../shared/rules'
+import type { Role } from '../../../shared/utils/roles'
+import type { DecisionStatus } from '../../../shared/utils/decision-status'
+import { appendChainedEvent, canonicalHash, type DecisionEventType } from '../../db/event-chain'
+import * as schema from '../../db/schema'
+import type { DbOrTx } from '../../db/types'
 
 export type RecordActor = { id: number; role: Role }
-export type DecisionStatus = (typeof schema.DECISION_STATUSES)[number]
 export type DecisionRow = typeof schema.decisions.$inferSelect
 
 /**

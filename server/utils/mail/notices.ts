@@ -1,7 +1,11 @@
 import { and, eq, ne } from 'drizzle-orm'
-import { APPROACH_LABELS, WALL_TREATMENT_LABELS, type ApproachId, type WallTreatment } from '#shared/rules'
-import type { SessionUser } from './auth'
-import type { DbOrTx } from './decision-events'
+import { notFound } from '../http/errors'
+import { APPROACH_LABELS, WALL_TREATMENT_LABELS } from '#shared/rules'
+import type { DecisionOverride } from '#shared/types/decisions'
+import type { SessionUser } from '#shared/types/session'
+import type { DbOrTx } from '../../db/types'
+import { MAIL_CAUTIONS, enqueueMail } from './outbox'
+import { tables } from '../db'
 
 // Review notices: who hears about a review action, and what the message says. Called by the
 // decision actions inside their transaction; delivery follows the commit (kickMailDelivery).
@@ -15,11 +19,8 @@ const HEADLINES: Record<DecisionNoticeType, string> = {
   changes_requested: 'Changes requested',
 }
 
-type OverrideSummary = { approach?: ApproachId; model?: string; wallTreatment?: WallTreatment; yPlusTarget?: number | null }
-
-function overrideLine(override: unknown) {
-  const o = (override ?? {}) as OverrideSummary
-  if (!o.approach) return undefined
+function overrideLine(o: DecisionOverride | null) {
+  if (!o) return undefined
   const parts = [APPROACH_LABELS[o.approach] ?? o.approach]
   if (o.model) parts.push(o.model)
   if (o.wallTreatment) parts.push(WALL_TREATMENT_LABELS[o.wallTreatment] ?? o.wallTreatment)
@@ -61,7 +62,7 @@ export async function queueDecisionNotice(tx: DbOrTx, notice: {
   }).from(tables.decisions)
     .innerJoin(tables.projects, eq(tables.projects.id, tables.decisions.projectId))
     .where(eq(tables.decisions.id, notice.decisionId))
-  if (!row) throw createError({ statusCode: 404, message: `Decision ${notice.decisionId} does not exist` })
+  if (!row) throw notFound(`Decision ${notice.decisionId} does not exist`)
 
   const to = await recipients(tx, notice.type, row, notice.actor)
   if (!to.length) return 0

@@ -3,37 +3,16 @@ import { existsSync, mkdtempSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
-import { formatQuantity, formatSci, formatSig } from '../../../../app/utils/format'
-import { adviceRecord, overrideRecord } from '../../../../server/db/decision-record'
-import { GENESIS_HASH, checkChain, eventHash } from '../../../../server/db/event-chain'
-import { CONDENSER_WAKE } from '../../../../server/db/seed-demo'
-import {
-  decisionReportFilename, markdownToPlain, renderDecisionReport, reportText, type DecisionReportData,
-} from '../../../../server/utils/decision-report'
+import { formatQuantity, formatSci } from '#shared/utils/format'
+import { GENESIS_HASH, checkChain, eventHash } from '../../../../../server/db/event-chain'
+import { CONDENSER_WAKE } from '../../../../../server/db/seed-demo'
+import { adviceRecord, overrideRecord } from '../../../../../server/utils/decisions/record'
+import { decisionReportFilename, type DecisionReportData } from '../../../../../server/utils/report/data'
+import { markdownToPlain } from '../../../../../server/utils/report/markdown-text'
+import { renderDecisionReport } from '../../../../../server/utils/report/render'
 
-// The PDF's numbers are the page's numbers (app/utils/format.ts), written in the glyphs the
-// standard PDF fonts have (Windows-1252): formatting conventions are ours, no source.
-describe('reportText', () => {
-  it('writes a superscript power of ten as ^n, keeping the significant figures', () => {
-    expect(reportText(formatSci(2.25e7))).toBe('2.25×10^7')
-    expect(reportText(formatSci(3.4e-5))).toBe('3.4×10^-5')
-    expect(reportText(formatSig(-1.234e-6))).toBe('-1.23×10^-6')
-  })
-
-  it('puts an ordinary space between a value and its unit and keeps Latin-1 symbols', () => {
-    expect(reportText(formatQuantity(0.000123, 'm'))).toBe('1.23×10^-4 m')
-    expect(reportText(formatQuantity(1.2, 'kg/m³'))).toBe('1.2 kg/m³')
-    expect(reportText(formatQuantity(1.81e-5, 'Pa·s'))).toBe('1.81×10^-5 Pa·s')
-  })
-
-  it('spells out what the fonts cannot show', () => {
-    expect(reportText('y+ ≈ 1, y+ ≤ 5, ∞')).toBe('y+ ~ 1, y+ <= 5, infinity')
-    expect(reportText('k-ω SST')).toBe('k-omega SST')
-    expect(reportText('Łódź')).toBe('?ódz')
-    expect(reportText('café — “quoted”')).toBe('café — “quoted”')
-  })
-})
-
+// The PDF's numbers are the page's numbers (shared/utils/format.ts), written as typed with the
+// embedded fonts: formatting conventions are ours, no source.
 describe('markdownToPlain', () => {
   it('drops the markup (HTML tags too) and keeps the words, list items on their own lines', () => {
     const text = markdownToPlain('A **bold** claim with `code` and a [link](https://example.org).\n\n- first\n- second &amp; last\n\n<b>raw</b>')
@@ -42,12 +21,12 @@ describe('markdownToPlain', () => {
 })
 
 /** A decision state built the way the server builds one: engine advice, an override, chained events. */
-function overriddenCondenser(): DecisionReportData {
+function overriddenCondenser(text: { title?: string; comment?: string; author?: string } = {}): DecisionReportData {
   const record = adviceRecord(CONDENSER_WAKE)
   const firstFired = record.advice.trace.find(t => t.fired)!.rule
   const { override } = overrideRecord(
     { caseInput: record.caseInput, advice: record.advice },
-    { approach: 'wmles', model: 'WALE', wallTreatment: 'wall-model', comment: 'Shear layers off the casing edges must stay resolved.', disagreedRules: [firstFired] },
+    { approach: 'wmles', model: 'WALE', wallTreatment: 'wall-model', comment: text.comment ?? 'Shear layers off the casing edges must stay resolved.', disagreedRules: [firstFired] },
     { id: 3, name: 'Jonah Okafor' },
   )
   const at = (minutes: number) => new Date(Date.UTC(2026, 10, 2, 9, minutes))
@@ -64,10 +43,10 @@ function overriddenCondenser(): DecisionReportData {
     prevHash = hash
     return event
   })
-  const names: Record<number, string> = { 1: 'Ada Ferreira', 3: 'Jonah Okafor' }
+  const names: Record<number, string> = { 1: text.author ?? 'Ada Ferreira', 3: 'Jonah Okafor' }
   return {
     decision: {
-      id: 7, projectId: 3, title: 'Condenser wake and tonal noise', status: 'overridden', version: 3, revision: 1,
+      id: 7, projectId: 3, title: text.title ?? 'Condenser wake and tonal noise', status: 'overridden', version: 3, revision: 1,
       caseInput: record.caseInput, advice: record.advice, notes: null,
       author: { id: 1, name: 'Ada Ferreira', email: 'engineer@eddyledger.test' },
       override, supersedesId: null, supersededById: null, createdAt: at(0), updatedAt: at(30),
@@ -101,9 +80,24 @@ describe('renderDecisionReport', () => {
     writeFileSync(file, await renderDecisionReport(data, { generatedAt }))
     const text = execFileSync('/usr/bin/pdftotext', ['-layout', file, '-'], { encoding: 'utf8' })
     const first = data.decision.advice.approaches[0]!
-    expect(text).toContain(reportText(formatSci(first.cells)).replace('^', ''))
-    expect(text).toContain(reportText(formatQuantity(data.decision.override!.wall.firstCellHeight, 'm')))
+    const squeeze = (t: string) => t.replace(/\s+/g, '')
+    expect(squeeze(text)).toContain(squeeze(formatSci(first.cells)))
+    expect(squeeze(text)).toContain(squeeze(formatQuantity(data.decision.override!.wall.firstCellHeight, 'm')))
     expect(text).toMatch(/page 1 of \d/)
     expect(text).toContain('Chain intact: 3 events')
+  })
+
+  it.runIf(existsSync('/usr/bin/pdftotext'))('prints names, titles and comments in any script as typed', async () => {
+    const typed = {
+      title: 'Ροή γύρω από κύλινδρο: Αθήνα, πτέρυγα Β',
+      comment: 'Сдвиговые слои от кромок корпуса должны оставаться разрешёнными.',
+      author: 'Zoë Łukasiewicz Núñez',
+    }
+    const dir = mkdtempSync(join(tmpdir(), 'eddy-report-'))
+    const file = join(dir, 'report.pdf')
+    writeFileSync(file, await renderDecisionReport(overriddenCondenser(typed), { generatedAt }))
+    const text = execFileSync('/usr/bin/pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ')
+    for (const words of Object.values(typed)) expect(text).toContain(words)
+    expect(text).not.toContain('?')
   })
 })

@@ -1,5 +1,10 @@
 import { and, asc, eq, isNull, sql } from 'drizzle-orm'
+import { notFound } from '../http/errors'
 import type { UserCreateBody, UserUpdateBody } from '#shared/schemas/users'
+import { findUserByEmail } from './lookup'
+import { queueInvitation } from './user-tokens'
+import { kickMailDelivery } from '../mail/outbox'
+import { tables, useDb } from '../db'
 
 // The public shape of a user: never the password hash.
 export const publicUserColumns = {
@@ -11,10 +16,6 @@ export const publicUserColumns = {
   // Invited but no password chosen yet: the admin may send the invitation again.
   awaitingPassword: sql<boolean>`${tables.users.passwordHash} IS NULL`,
   createdAt: tables.users.createdAt,
-}
-
-export function findUserByEmail(email: string) {
-  return useDb().query.users.findFirst({ where: eq(sql`lower(${tables.users.email})`, email.toLowerCase()) })
 }
 
 export function listUsers() {
@@ -47,7 +48,7 @@ export async function createUser(body: UserCreateBody, invitedBy?: { name: strin
  */
 export async function resendInvitation(id: number, invitedBy: { name: string }) {
   const user = await useDb().query.users.findFirst({ where: eq(tables.users.id, id) })
-  if (!user) throw createError({ statusCode: 404, message: `User ${id} does not exist` })
+  if (!user) throw notFound(`User ${id} does not exist`)
   if (!user.active) throw createError({ statusCode: 409, message: `${user.name} is deactivated; reactivate the account first` })
   if (user.passwordHash) {
     throw createError({ statusCode: 409, message: `${user.name} has already set a password; "Forgot password?" on the sign-in page sends a reset link` })
@@ -67,6 +68,6 @@ export async function updateUser(id: number, body: UserUpdateBody, actorId: numb
   }
   const [user] = await useDb().update(tables.users).set({ ...body, updatedAt: new Date() })
     .where(eq(tables.users.id, id)).returning(publicUserColumns)
-  if (!user) throw createError({ statusCode: 404, message: `User ${id} does not exist` })
+  if (!user) throw notFound(`User ${id} does not exist`)
   return user
 }

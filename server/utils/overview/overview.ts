@@ -1,9 +1,10 @@
 // The team lead's overview: method usage, overrides and compute across projects, aggregated in
 // PostgreSQL over each decision and the advice of its current revision.
 import { and, asc, count, desc, eq, gte, lt, sql, type SQL } from 'drizzle-orm'
-import { DECISION_STATUSES, type DecisionStatus } from '#shared/schemas/decisions'
+import { DECISION_STATUSES, type DecisionStatus } from '#shared/utils/decision-status'
 import type { OverviewQuery } from '#shared/schemas/overview'
-import { budgetCoreHours, chosenApproach, chosenCoreHours, chosenModel, currentRevisionJoin } from './decisions'
+import { budgetCoreHours, chosenApproach, chosenCoreHours, chosenModel, currentRevisionJoin } from '../decisions/queries'
+import { tables, useDb } from '../db'
 
 const decisions = tables.decisions
 const revisions = tables.decisionRevisions

@@ -1,5 +1,6 @@
 import type { H3Event } from 'h3'
 import { sql } from 'drizzle-orm'
+import { useDb } from '../db'
 
 // Failed sign-ins are counted per account and per client address in PostgreSQL, so the limit
 // holds across several server processes. Limits come from runtimeConfig.loginLimit.

@@ -1,0 +1,11 @@
+// Types of what the server's routes return, as the browser receives them (dates as strings), taken
+// from the routes themselves: a page or component never writes a copy of a response's shape.
+import type { InternalApi } from 'nitropack/types'
+
+export type ApiResponse<Route extends keyof InternalApi, Method extends keyof InternalApi[Route] = 'get' & keyof InternalApi[Route]> =
+  InternalApi[Route][Method]
+
+export type AuditRow = ApiResponse<'/api/audit/decisions'>['decisions'][number]
+export type ChainCheck = ApiResponse<'/api/decisions/:id/verify'>
+export type TimelineEvent = ApiResponse<'/api/decisions/:id/events'>['events'][number]
+export type OverviewProjectRow = ApiResponse<'/api/overview'>['compute']['projects'][number]

@@ -1,0 +1,36 @@
+import type { H3Event } from 'h3'
+import { eq } from 'drizzle-orm'
+import type { Role } from '#shared/utils/roles'
+import type { SessionUser } from '#shared/types/session'
+import { tables, useDb } from '../db'
+
+/**
+ * The signed-in user, re-read from the database so that a role change or a deactivation takes
+ * effect on the next request, not when the cookie expires.
+ */
+export async function requireUser(event: H3Event): Promise<SessionUser> {
+  if (event.context.user) return event.context.user as SessionUser
+  const session = await getUserSession(event)
+  const id = session.user?.id
+  if (!id) throw createError({ statusCode: 401, message: 'Sign in to continue' })
+  const row = await useDb().query.users.findFirst({ where: eq(tables.users.id, id) })
+  if (!row || !row.active) {
+    await clearUserSession(event)
+    throw createError({ statusCode: 401, message: 'Your session has ended; sign in again' })
+  }
+  const user: SessionUser = { id: row.id, email: row.email, name: row.name, role: row.role }
+  const seen = session.user!
+  if (seen.role !== user.role || seen.name !== user.name || seen.email !== user.email) {
+    await setUserSession(event, { user })
+  }
+  event.context.user = user
+  return user
+}
+
+export async function requireRole(event: H3Event, ...roles: Role[]): Promise<SessionUser> {
+  const user = await requireUser(event)
+  if (!roles.includes(user.role)) {
+    throw createError({ statusCode: 403, message: `This needs the role ${roles.join(' or ')}` })
+  }
+  return user
+}

@@ -1,0 +1,28 @@
+// What the PDF record shows, read once so that the document is one consistent state.
+import { verifyChain } from '../decisions/events'
+import { listEvents, projectHeading, readDecision, readRevision } from '../decisions/queries'
+import { useDb } from '../db'
+
+/** Everything the record shows, read once so that the PDF is one consistent state. */
+export async function loadDecisionReport(decisionId: number) {
+  const decision = await readDecision(decisionId)
+  const [project, events, chain, revision] = await Promise.all([
+    projectHeading(decision.projectId),
+    listEvents(decisionId),
+    verifyChain(useDb(), decisionId),
+    readRevision(decisionId, decision.revision),
+  ])
+  return {
+    decision,
+    project,
+    events,
+    chain,
+    provenance: { rulesetId: revision.rulesetId, rulesetVersion: revision.rulesetVersion, engineVersion: revision.engineVersion, inputHash: revision.inputHash },
+  }
+}
+export type DecisionReportData = Awaited<ReturnType<typeof loadDecisionReport>>
+
+export function decisionReportFilename(data: Pick<DecisionReportData, 'decision' | 'project'>) {
+  const code = data.project.code.replace(/[^A-Za-z0-9_-]+/g, '_')
+  return `eddyledger-${code}-decision-${data.decision.id}-v${data.decision.version}.pdf`
+}
