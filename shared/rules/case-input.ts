@@ -1,6 +1,7 @@
 /**
  * The case description the engine accepts, as one zod schema shared by the questionnaire form,
- * the server route and the engine. All quantities SI; the UI converts units.
+ * the server route and the engine. All quantities SI; the UI converts units. Every field added in
+ * engine 2.0 is optional: a case that leaves them out gets today's defaults.
  */
 import { z } from 'zod'
 import { SUTHERLAND_TEMPERATURE_RANGE, WATER_TEMPERATURE_RANGE } from './fluid-properties'
@@ -8,6 +9,15 @@ import { MAX_RELATIVE_ROUGHNESS } from './skin-friction'
 
 export const QUANTITIES = ['forces', 'pressure', 'heat-transfer', 'unsteady-loads', 'noise', 'mixing', 'statistics'] as const
 export type Quantity = (typeof QUANTITIES)[number]
+
+/** Kinds of flow with their own published practice; inferred from the other fields when not given. */
+export const APPLICATIONS = ['general', 'atmospheric', 'indoor', 'marine', 'turbomachinery', 'swirl', 'jet'] as const
+export type Application = (typeof APPLICATIONS)[number]
+
+/** External roughness above half the reference length is an obstacle to model, not a roughness (our limit, no source). */
+export const MAX_EXTERNAL_ROUGHNESS_FRACTION = 0.5
+/** A roughness length z0 above a tenth of the reference length describes obstacles (our limit, no source). */
+export const MAX_ROUGHNESS_LENGTH_FRACTION = 0.1
 
 /** A finite number with readable messages; `label` starts the sentence, `unit` is shown beside it. */
 function quantity(label: string, unit: string) {
@@ -61,6 +71,29 @@ const physicsSchema = z
   })
   .default({})
 
+/**
+ * Optional description of the computational domain. Absent fields keep the defaults: a 3-D
+ * domain; external: a wetted area of the geometry's factor times L x L; internal: a straight duct
+ * of 10 hydraulic diameters of circular section.
+ */
+const domainSchema = z
+  .object(
+    {
+      /** 2d: one cell deep for RANS; scale-resolving methods run span-periodic. axisymmetric: likewise about the axis. */
+      dimensions: choice(['3d', '2d', 'axisymmetric', 'span-periodic'], 'Domain dimensions').optional(),
+      /** streamwise length of the domain in reference lengths (internal: hydraulic diameters) */
+      lengthRatio: within('Domain length', 'reference lengths', 0.1, 1000).optional(),
+      /** span of a 3-D or span-periodic domain, m */
+      span: within('Span', 'm', 1e-6, 1e5).optional(),
+      /** wetted area of all walls, m2; replaces the geometry's area factor */
+      wettedArea: within('Wetted area', 'm2', 1e-12, 1e10).optional(),
+      /** internal flow: circular pipe (default), plane channel between two walls (L = 4 x half-height), or rectangular duct */
+      crossSection: choice(['pipe', 'channel', 'duct'], 'Cross-section').optional(),
+    },
+    { invalid_type_error: 'Domain must describe dimensions, length, span, wetted area or cross-section.' },
+  )
+  .strict()
+
 const budgetSchema = z.object(
   {
     coreHours: positive('Core-hour budget', 'core-hours', 1e15),
@@ -76,7 +109,10 @@ export const caseInputSchema = z
     fluid: fluidSchema,
     velocity: within('Velocity', 'm/s', 1e-6, 1e4),
     length: within('Length', 'm', 1e-6, 1e4),
+    /** equivalent sand-grain roughness height k_s of the walls, m; any regime */
     roughness: quantity('Roughness', 'm').nonnegative('Roughness cannot be negative.').optional(),
+    /** aerodynamic roughness length z0 of terrain (atmospheric flow), m; converted to k_s */
+    roughnessLength: within('Roughness length z0', 'm', 1e-7, 10).optional(),
     turbulenceIntensity: quantity('Turbulence intensity', 'a fraction, e.g. 0.01 for 1%')
       .positive('Turbulence intensity must be greater than zero.')
       .max(0.5, 'Turbulence intensity must be at most 0.5 (50%).')
@@ -99,59 +135,80 @@ export const caseInputSchema = z
       .min(1.01, 'Growth ratio must be at least 1.01.')
       .max(2, 'Growth ratio must be at most 2.')
       .default(1.2),
+    domain: domainSchema.optional(),
+    /** the lowest frequency the unsteady loads or noise must resolve, Hz; sets the simulated time */
+    lowestFrequencyHz: within('Lowest frequency of interest', 'Hz', 1e-6, 1e7).optional(),
+    /** wall temperature for the compressible wall figures, K; adiabatic wall when absent */
+    wallTemperatureK: within('Wall temperature', 'K', 1, 1e4).optional(),
+    /** time integration of the scale-resolving solver; explicit compressible solvers pay the acoustic time-step limit */
+    timeIntegration: choice(['explicit', 'implicit'], 'Time integration').optional(),
+    /** swirl number S (axial flux of angular momentum over R times the axial momentum flux) */
+    swirlNumber: quantity('Swirl number', '').nonnegative('Swirl number cannot be negative.').max(10, 'Swirl number above 10 is outside the range this engine handles.').optional(),
+    /** the kind of flow, when the engine should not infer it from the other fields */
+    application: choice(APPLICATIONS, 'Application').optional(),
   })
   .superRefine((input, ctx) => {
-    const { fluid } = input
-    if (fluid.medium === 'custom') {
-      if (fluid.density === undefined) {
-        ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['fluid', 'density'], message: 'Density is required for a custom fluid.' })
-      }
-      if (fluid.viscosity === undefined) {
-        ctx.addIssue({
-          code: z.ZodIssueCode.custom,
-          path: ['fluid', 'viscosity'],
-          message: 'Dynamic viscosity is required for a custom fluid.',
-        })
-      }
-    }
-    if (fluid.medium === 'water' && fluid.temperatureK !== undefined) {
-      const { min, max } = WATER_TEMPERATURE_RANGE
-      if (fluid.temperatureK < min || fluid.temperatureK > max) {
-        ctx.addIssue({
-          code: z.ZodIssueCode.custom,
-          path: ['fluid', 'temperatureK'],
-          message: `Water is covered as a liquid from ${min} K (0 °C) to ${max} K (100 °C) at ordinary pressure.`,
-        })
-      }
-    }
-    if (fluid.medium === 'air' && fluid.temperatureK !== undefined) {
-      const { min, max } = SUTHERLAND_TEMPERATURE_RANGE
-      if (fluid.temperatureK < min || fluid.temperatureK > max) {
-        ctx.addIssue({
-          code: z.ZodIssueCode.custom,
-          path: ['fluid', 'temperatureK'],
-          message: `Sutherland's law for air holds from about ${min} K to ${max} K.`,
-        })
-      }
-    }
-    if (input.roughness !== undefined && input.roughness > 0) {
-      if (input.regime !== 'internal') {
-        ctx.addIssue({
-          code: z.ZodIssueCode.custom,
-          path: ['roughness'],
-          message: 'Roughness is used only for internal flow (duct or pipe); leave it empty for external flow.',
-        })
-      } else if (input.roughness / input.length > MAX_RELATIVE_ROUGHNESS) {
-        ctx.addIssue({
-          code: z.ZodIssueCode.custom,
-          path: ['roughness'],
-          message: `Relative roughness k/D above ${MAX_RELATIVE_ROUGHNESS} is beyond the range of the Colebrook-White equation.`,
-        })
-      }
+    checkFluid(input.fluid, ctx)
+    checkRoughness(input, ctx)
+    if (input.domain?.crossSection !== undefined && input.regime !== 'internal') {
+      issue(ctx, ['domain', 'crossSection'], 'A cross-section describes internal flow; leave it empty for external flow.')
     }
   })
+
+function issue(ctx: z.RefinementCtx, path: (string | number)[], message: string): void {
+  ctx.addIssue({ code: z.ZodIssueCode.custom, path, message })
+}
+
+type FluidInput = z.output<typeof fluidSchema>
+
+function checkFluid(fluid: FluidInput, ctx: z.RefinementCtx): void {
+  if (fluid.medium === 'custom') {
+    if (fluid.density === undefined) issue(ctx, ['fluid', 'density'], 'Density is required for a custom fluid.')
+    if (fluid.viscosity === undefined) issue(ctx, ['fluid', 'viscosity'], 'Dynamic viscosity is required for a custom fluid.')
+  }
+  if (fluid.medium === 'water' && fluid.temperatureK !== undefined) {
+    const { min, max } = WATER_TEMPERATURE_RANGE
+    if (fluid.temperatureK < min || fluid.temperatureK > max) {
+      issue(ctx, ['fluid', 'temperatureK'], `Water is covered as a liquid from ${min} K (0 °C) to ${max} K (100 °C) at ordinary pressure.`)
+    }
+  }
+  if (fluid.medium === 'air' && fluid.temperatureK !== undefined) {
+    const { min, max } = SUTHERLAND_TEMPERATURE_RANGE
+    if (fluid.temperatureK < min || fluid.temperatureK > max) {
+      issue(ctx, ['fluid', 'temperatureK'], `Sutherland's law for air holds from about ${min} K to ${max} K.`)
+    }
+  }
+}
+
+interface RoughnessInput {
+  regime: 'external' | 'internal'
+  length: number
+  roughness?: number | undefined
+  roughnessLength?: number | undefined
+}
+
+function checkRoughness(input: RoughnessInput, ctx: z.RefinementCtx): void {
+  const roughness = input.roughness ?? 0
+  if (input.roughnessLength !== undefined) {
+    if (roughness > 0) issue(ctx, ['roughnessLength'], 'Give either the sand-grain roughness height or the roughness length z0, not both.')
+    if (input.regime !== 'external') {
+      issue(ctx, ['roughnessLength'], 'The roughness length z0 describes terrain under an atmospheric boundary layer (external flow); for a duct give the sand-grain roughness height.')
+    } else if (input.roughnessLength > MAX_ROUGHNESS_LENGTH_FRACTION * input.length) {
+      issue(ctx, ['roughnessLength'], `A roughness length above ${MAX_ROUGHNESS_LENGTH_FRACTION} of the reference length describes obstacles, not roughness; model them.`)
+    }
+  }
+  if (roughness <= 0) return
+  if (input.regime === 'internal' && roughness / input.length > MAX_RELATIVE_ROUGHNESS) {
+    issue(ctx, ['roughness'], `Relative roughness k/D above ${MAX_RELATIVE_ROUGHNESS} is beyond the range of the Colebrook-White equation.`)
+  }
+  if (input.regime === 'external' && roughness / input.length > MAX_EXTERNAL_ROUGHNESS_FRACTION) {
+    issue(ctx, ['roughness'], `Roughness above ${MAX_EXTERNAL_ROUGHNESS_FRACTION} of the reference length is an obstacle, not roughness; model it.`)
+  }
+}
 
 /** A case with defaults applied (what the engine works on). */
 export type CaseInput = z.output<typeof caseInputSchema>
 /** A case as the form or a caller may send it, defaults not yet applied. */
 export type CaseInputDraft = z.input<typeof caseInputSchema>
+/** The optional domain description. */
+export type DomainInput = z.output<typeof domainSchema>

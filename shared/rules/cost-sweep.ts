@@ -4,9 +4,10 @@
  * each approach's wall treatment as advise() chose it for the case, stays fixed. At the case's own
  * Reynolds number the figures equal advise()'s.
  */
-import { APPROACH_IDS, type ApproachId, type WallTreatment } from './approaches'
-import { adviseParsed, costCaseFor } from './advise'
+import { APPROACH_IDS, defaultWallTreatments, type ApproachId, type WallTreatment } from './approaches'
+import { adviseParsed } from './advise'
 import { caseInputSchema, type CaseInput, type CaseInputDraft } from './case-input'
+import { costCaseFor } from './cost-case'
 import { approachCost } from './cost-model'
 import { flowPhysics } from './flow-physics'
 
@@ -19,6 +20,7 @@ export interface CostSweepOptions {
 
 export interface CostSweep {
   reynolds: number[]
+  /** core-hours per approach; the laminar series is included for every case, the advice lists it only for laminar and transitional flow */
   series: Record<ApproachId, number[]>
 }
 
@@ -33,10 +35,8 @@ export function costSweep(input: CaseInput | CaseInputDraft, options: CostSweepO
   }
   const parsed = caseInputSchema.parse(input)
   const advice = adviseParsed(parsed)
-  const treatments = Object.fromEntries(advice.approaches.map((entry) => [entry.id, entry.wallTreatment])) as Record<
-    ApproachId,
-    WallTreatment
-  >
+  const treatments: Record<ApproachId, WallTreatment> = { ...defaultWallTreatments() }
+  for (const entry of advice.approaches) treatments[entry.id] = entry.wallTreatment
 
   const reynolds: number[] = []
   const series = Object.fromEntries(APPROACH_IDS.map((id) => [id, [] as number[]])) as Record<ApproachId, number[]>
@@ -44,7 +44,7 @@ export function costSweep(input: CaseInput | CaseInputDraft, options: CostSweepO
     const exponent = decades * ((2 * index) / (points - 1) - 1)
     const velocity = exponent === 0 ? parsed.velocity : parsed.velocity * 10 ** exponent
     const physics = flowPhysics(parsed, velocity)
-    const costCase = costCaseFor(parsed, physics, velocity)
+    const costCase = costCaseFor(parsed, physics)
     reynolds.push(physics.reynolds)
     for (const id of APPROACH_IDS) {
       series[id].push(approachCost(id, costCase, treatments[id], parsed.budget).coreHours)

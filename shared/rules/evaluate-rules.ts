@@ -5,7 +5,7 @@
  */
 import jsonLogic, { type RulesLogic } from 'json-logic-js'
 import type { ApproachId, WallTreatment } from './approaches'
-import type { Facts } from './facts'
+import type { Facts, PhysicsFacts } from './facts'
 import type { Rule, Ruleset } from './ruleset-schema'
 
 export interface AppliedEffects {
@@ -26,11 +26,11 @@ export interface RuleOutcome {
 }
 
 /** Truthiness as json-logic defines it (an empty array is false). */
-export function conditionHolds(when: unknown, facts: Facts): boolean {
+export function conditionHolds(when: unknown, facts: PhysicsFacts | Facts): boolean {
   return jsonLogic.truthy(jsonLogic.apply(when as RulesLogic, facts))
 }
 
-function scoreChange(rule: Rule, approach: ApproachId, change: unknown, facts: Facts): number {
+function scoreChange(rule: Rule, approach: ApproachId, change: unknown, facts: PhysicsFacts | Facts): number {
   const value = typeof change === 'number' ? change : jsonLogic.apply(change as RulesLogic, facts)
   if (typeof value !== 'number' || !Number.isFinite(value)) {
     throw new Error(`Rule "${rule.id}" gave a score change for ${approach} that is not a finite number.`)
@@ -48,7 +48,7 @@ function hasComputedScores(rule: Rule): boolean {
   return false
 }
 
-function appliedEffects(rule: Rule, facts: Facts): AppliedEffects {
+function appliedEffects(rule: Rule, facts: PhysicsFacts | Facts): AppliedEffects {
   const declared = rule.effects
   const effects: { -readonly [K in keyof AppliedEffects]: AppliedEffects[K] } = {}
   if (declared.scores) {
@@ -65,7 +65,7 @@ function appliedEffects(rule: Rule, facts: Facts): AppliedEffects {
   return Object.isFrozen(rule) ? Object.freeze(effects) : effects
 }
 
-export function evaluateRule(rule: Rule, facts: Facts): RuleOutcome {
+export function evaluateRule(rule: Rule, facts: PhysicsFacts | Facts): RuleOutcome {
   const fired = conditionHolds(rule.when, facts)
   let effects = constantEffects.get(rule)
   if (!effects) {
@@ -76,7 +76,7 @@ export function evaluateRule(rule: Rule, facts: Facts): RuleOutcome {
 }
 
 /** Outcomes of every rule of a stage, in ruleset order. */
-export function evaluateStage(ruleset: Ruleset, stage: Rule['stage'], facts: Facts): RuleOutcome[] {
+export function evaluateStage(ruleset: Ruleset, stage: Rule['stage'], facts: PhysicsFacts | Facts): RuleOutcome[] {
   const outcomes: RuleOutcome[] = []
   for (const rule of ruleset.rules) {
     if (rule.stage === stage) outcomes.push(evaluateRule(rule, facts))

@@ -184,3 +184,54 @@ export function fluidState(fluid: FluidDescription): FluidState {
     temperatureK,
   }
 }
+
+/** Prandtl number of air near room temperature (textbook value 0.71-0.72; from memory). */
+export const AIR_PRANDTL = 0.72
+/** Turbulent recovery factor r = Pr^(1/3) (common practice; from memory). */
+export const TURBULENT_RECOVERY_FACTOR = AIR_PRANDTL ** (1 / 3)
+
+/** Adiabatic wall temperature T_aw = T_e (1 + r (gamma - 1)/2 M^2), K (textbook; from memory). */
+export function adiabaticWallTemperature(edgeTemperature: number, mach: number, recovery = TURBULENT_RECOVERY_FACTOR): number {
+  return edgeTemperature * (1 + (recovery * (AIR_HEAT_CAPACITY_RATIO - 1) * mach * mach) / 2)
+}
+
+/** Eckert's reference temperature T* = T_e + 0.5 (T_w - T_e) + 0.22 (T_aw - T_e), K (Eckert 1955, J. Aeronaut. Sci. 22, 585; from memory). */
+export function eckertReferenceTemperature(edgeTemperature: number, wallTemperature: number, adiabaticWall: number): number {
+  return edgeTemperature + 0.5 * (wallTemperature - edgeTemperature) + 0.22 * (adiabaticWall - edgeTemperature)
+}
+
+export interface ReferenceState {
+  /** Eckert's reference temperature, K */
+  temperatureK: number
+  /** wall temperature, K (adiabatic when not given) */
+  wallTemperatureK: number
+  /** density and viscosity at the reference temperature (skin friction) */
+  density: number
+  viscosity: number
+  /** density and kinematic viscosity at the wall (wall units) */
+  wallDensity: number
+  wallKinematicViscosity: number
+}
+
+/**
+ * Properties of air for the compressible wall figures: skin friction at Eckert's reference
+ * temperature and wall units at the wall temperature, at the free-stream pressure (boundary-layer
+ * approximation). Clamped to Sutherland's range.
+ */
+export function airReferenceState(fluid: FluidState, pressurePa: number, mach: number, wallTemperatureK?: number): ReferenceState {
+  const edge = fluid.temperatureK ?? DEFAULT_TEMPERATURE
+  const { min, max } = SUTHERLAND_TEMPERATURE_RANGE
+  const clamp = (t: number) => Math.min(max, Math.max(min, t))
+  const adiabatic = adiabaticWallTemperature(edge, mach)
+  const wall = clamp(wallTemperatureK ?? adiabatic)
+  const reference = clamp(eckertReferenceTemperature(edge, wall, adiabatic))
+  const wallDensity = airDensity(wall, pressurePa)
+  return {
+    temperatureK: reference,
+    wallTemperatureK: wall,
+    density: airDensity(reference, pressurePa),
+    viscosity: airViscosity(reference),
+    wallDensity,
+    wallKinematicViscosity: airViscosity(wall) / wallDensity,
+  }
+}

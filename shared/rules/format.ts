@@ -41,3 +41,22 @@ export function formatNumber(value: number): string {
 export function formatScoreChange(change: number): string {
   return change > 0 ? `+${change}` : String(change)
 }
+
+/** Significant figures an estimate deserves: one when it is uncertain by a factor of 3 or more, two otherwise. */
+export function significantFiguresFor(uncertaintyFactor: number): number {
+  return uncertaintyFactor >= 3 ? 1 : 2
+}
+
+/** A value rounded to the significant figures its uncertainty allows (see significantFiguresFor). */
+export function roundToBand(value: number, uncertaintyFactor: number): number {
+  if (!Number.isFinite(value) || value === 0) return value
+  const digits = significantFiguresFor(uncertaintyFactor)
+  const scale = 10 ** (Math.floor(Math.log10(Math.abs(value))) - digits + 1)
+  return Math.round(value / scale) * scale
+}
+
+/** "about 5e6 (2e6 to 1e7)": an estimate rounded to its band, with its range. */
+export function formatEstimate(value: number, range: { low: number; high: number }, uncertaintyFactor: number): string {
+  const round = (v: number) => formatNumber(roundToBand(v, uncertaintyFactor))
+  return `about ${round(value)} (${round(range.low)} to ${round(range.high)})`
+}

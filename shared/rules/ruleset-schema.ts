@@ -6,7 +6,7 @@
  */
 import { z } from 'zod'
 import { APPROACH_IDS, MODELS_BY_APPROACH, WALL_TREATMENTS, WALL_TREATMENTS_BY_APPROACH, type ApproachId } from './approaches'
-import { FACT_PATHS } from './facts'
+import { FACT_PATHS, PHYSICS_FACT_PATHS } from './facts'
 
 /** json-logic operations a rule may use. Array operations with their own scope (map, some, all...) are left out so every var names a fact. */
 export const ALLOWED_OPERATIONS: ReadonlySet<string> = new Set([
@@ -19,11 +19,11 @@ export interface LogicProblem {
   message: string
 }
 
-/** Every reason a value is not a json-logic expression over known facts. */
-export function logicProblems(logic: unknown, path: (string | number)[] = []): LogicProblem[] {
+/** Every reason a value is not a json-logic expression over known facts (`facts`: the paths it may read). */
+export function logicProblems(logic: unknown, path: (string | number)[] = [], facts: ReadonlySet<string> = FACT_PATHS): LogicProblem[] {
   if (logic === null || typeof logic === 'boolean' || typeof logic === 'string') return []
   if (typeof logic === 'number') return Number.isFinite(logic) ? [] : [{ path, message: 'Numbers in rules must be finite.' }]
-  if (Array.isArray(logic)) return logic.flatMap((item, index) => logicProblems(item, [...path, index]))
+  if (Array.isArray(logic)) return logic.flatMap((item, index) => logicProblems(item, [...path, index], facts))
   if (typeof logic !== 'object') return [{ path, message: 'Not a json-logic value.' }]
   const keys = Object.keys(logic)
   if (keys.length !== 1) return [{ path, message: `A json-logic operation has exactly one key; found ${keys.length}.` }]
@@ -35,9 +35,12 @@ export function logicProblems(logic: unknown, path: (string | number)[] = []): L
     if (typeof name !== 'string' || !FACT_PATHS.has(name)) {
       return [{ path: [...path, 'var'], message: `Unknown fact ${JSON.stringify(name)}; see FACT_PATHS in facts.ts.` }]
     }
+    if (!facts.has(name)) {
+      return [{ path: [...path, 'var'], message: `The fact ${JSON.stringify(name)} is a cost; treatment rules choose from the physics alone, before costs exist.` }]
+    }
     return []
   }
-  return logicProblems(argument, [...path, operation])
+  return logicProblems(argument, [...path, operation], facts)
 }
 
 /** A json-logic expression; validated structurally, typed loosely. */
@@ -88,6 +91,11 @@ export const ruleSchema = z
     const { effects } = rule
     if (!effects.scores && !effects.models && !effects.wallTreatment && !effects.cautions?.length) {
       ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['effects'], message: 'A rule must have at least one effect.' })
+    }
+    if (rule.stage === 'treatment') {
+      for (const problem of logicProblems(rule.when, ['when'], PHYSICS_FACT_PATHS)) {
+        if (problem.message.includes('is a cost')) ctx.addIssue({ code: z.ZodIssueCode.custom, path: problem.path, message: problem.message })
+      }
     }
     if (rule.stage === 'treatment' && (effects.scores || effects.models)) {
       ctx.addIssue({

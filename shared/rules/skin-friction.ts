@@ -78,3 +78,35 @@ export function pipeDarcyFriction(reynolds: number, relativeRoughness = 0): numb
 export function pipeSkinFriction(reynolds: number, relativeRoughness = 0): number {
   return pipeDarcyFriction(reynolds, relativeRoughness) / 4
 }
+
+/** Dean's correlation for plane-channel flow, Cf = 0.073 Re_2h^-1/4 with Re_2h = U_b 2h / nu (Dean 1978, J. Fluids Eng. 100, 215). */
+export function deanChannelSkinFriction(reynoldsTwoHalfHeights: number): number {
+  return 0.073 * reynoldsTwoHalfHeights ** -0.25
+}
+
+/**
+ * Fanning skin friction of a plane channel from its hydraulic-diameter Reynolds number
+ * (D_h = 4h, so Re_2h = Re_Dh / 2): laminar Poiseuille flow Cf = 12 / Re_2h below Re_Dh = 2300,
+ * Dean's correlation above (the transitional band is taken as turbulent, the finer-mesh choice).
+ */
+export function channelSkinFriction(reynoldsHydraulic: number): number {
+  const reynoldsTwoHalfHeights = reynoldsHydraulic / 2
+  if (reynoldsHydraulic < PIPE_TRANSITION_REYNOLDS) return 12 / reynoldsTwoHalfHeights
+  return Math.max(deanChannelSkinFriction(reynoldsTwoHalfHeights), 12 / reynoldsTwoHalfHeights)
+}
+
+/** Fully rough flat plate, local Cf = (2.87 + 1.58 log10(x/k_s))^-2.5 (Schlichting, Boundary-Layer Theory; from memory). */
+export function fullyRoughPlateSkinFriction(lengthOverRoughness: number): number {
+  return (2.87 + 1.58 * Math.log10(lengthOverRoughness)) ** -2.5
+}
+
+/**
+ * Local skin friction at the end of a plate of Reynolds number Re_x with sand-grain roughness k_s:
+ * the larger of the smooth value and the fully rough one, a common engineering approximation
+ * (from memory) that is exact in the smooth and fully rough limits and conservative between.
+ */
+export function roughPlateSkinFriction(reynoldsX: number, lengthOverRoughness: number): number {
+  const smooth = flatPlateSkinFriction(reynoldsX)
+  if (!(lengthOverRoughness < 1e12)) return smooth
+  return Math.max(smooth, fullyRoughPlateSkinFriction(Math.max(lengthOverRoughness, 2)))
+}

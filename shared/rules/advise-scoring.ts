@@ -1,0 +1,47 @@
+/**
+ * The scoring stage of advise(): base scores plus every fired rule's changes, the models the rules
+ * chose, and a reason line per change.
+ */
+import { APPROACH_IDS, defaultModels, type ApproachId } from './approaches'
+import { pushUnique } from './advise-treatments'
+import { evaluateStage, type RuleOutcome } from './evaluate-rules'
+import type { Facts } from './facts'
+import { formatScoreChange } from './format'
+import { RULESET } from './ruleset'
+
+export interface ScoringStage {
+  /** unclamped totals */
+  totals: Record<ApproachId, number>
+  reasons: Record<ApproachId, string[]>
+  models: Record<ApproachId, string>
+  outcomes: RuleOutcome[]
+  cautions: string[]
+}
+
+/** A score change as written in the reasons: whole points, to one decimal when smooth terms make it fractional. */
+function points(change: number): string {
+  return formatScoreChange(Math.round(change * 10) / 10)
+}
+
+export function scoringStage(facts: Facts): ScoringStage {
+  const outcomes = evaluateStage(RULESET, 'scoring', facts)
+  const models = defaultModels()
+  const totals = { ...RULESET.baseScores } as Record<ApproachId, number>
+  const reasons = {} as Record<ApproachId, string[]>
+  for (const id of APPROACH_IDS) reasons[id] = [`Starts at ${RULESET.baseScores[id]} (the ruleset's base score).`]
+  const cautions: string[] = []
+  for (const outcome of outcomes) {
+    if (!outcome.fired) continue
+    const changes = outcome.effects.scores
+    for (const id in changes) {
+      const change = changes[id as ApproachId]!
+      if (change === 0) continue
+      totals[id as ApproachId] += change
+      reasons[id as ApproachId].push(`${points(change)}: ${outcome.rule.title} (rule ${outcome.rule.id}).`)
+    }
+    const chosen = outcome.effects.models
+    for (const id in chosen) models[id as ApproachId] = chosen[id as ApproachId]!
+    pushUnique(cautions, outcome.effects.cautions)
+  }
+  return { totals, reasons, models, outcomes, cautions }
+}
