@@ -86,13 +86,44 @@ describe('caseInputSchema', () => {
     expect(found[0]).toMatch(/^fluid\.temperatureK: Sutherland's law for air holds/)
   })
 
-  it('accepts roughness only for internal flow, up to k/D = 0.05 (Moody 1944 chart range)', () => {
+  it('accepts roughness for any wall: internal up to k/D = 0.05 (Moody 1944 chart range), external below half the length (our limit)', () => {
     expect(issues(withChange((draft) => (draft.roughness = 1e-4)))).toEqual([])
     expect(issues(withChange((draft) => (draft.roughness = 0.01)))[0]).toMatch(/^roughness: Relative roughness/)
-    expect(issues(withChange((draft) => ((draft.regime = 'external'), (draft.roughness = 1e-4))))[0]).toMatch(
-      /^roughness: Roughness is used only for internal flow/,
-    )
+    expect(issues(withChange((draft) => ((draft.regime = 'external'), (draft.roughness = 1e-4))))).toEqual([])
+    expect(issues(withChange((draft) => ((draft.regime = 'external'), (draft.roughness = 0.06))))[0]).toMatch(/^roughness: Roughness above 0.5/)
     expect(issues(withChange((draft) => (draft.roughness = -1)))).toContain('roughness: Roughness cannot be negative.')
+  })
+
+  it('accepts an aerodynamic roughness length z0 for external flow only, and not together with k_s', () => {
+    const external = (change: (draft: Record<string, any>) => void) =>
+      withChange((draft) => {
+        draft.regime = 'external'
+        draft.length = 100
+        change(draft)
+      })
+    expect(issues(external((draft) => (draft.roughnessLength = 0.3)))).toEqual([])
+    expect(issues(external((draft) => ((draft.roughnessLength = 0.3), (draft.roughness = 0.01))))[0]).toMatch(/either the sand-grain roughness height or the roughness length/)
+    expect(issues(withChange((draft) => (draft.roughnessLength = 0.001)))[0]).toMatch(/^roughnessLength: The roughness length z0 describes terrain/)
+  })
+
+  it('accepts the optional domain, frequency, wall temperature, time integration, swirl number and application, and keeps old cases valid without them', () => {
+    expect(
+      issues(
+        withChange((draft) => {
+          draft.domain = { dimensions: '2d', lengthRatio: 20, span: 0.5, wettedArea: 2, crossSection: 'channel' }
+          draft.lowestFrequencyHz = 5
+          draft.wallTemperatureK = 350
+          draft.timeIntegration = 'implicit'
+          draft.swirlNumber = 0.8
+          draft.application = 'swirl'
+        }),
+      ),
+    ).toEqual([])
+    expect(issues(withChange((draft) => (draft.domain = { dimensions: '4d' })))[0]).toMatch(/^domain\.dimensions: Domain dimensions must be one of/)
+    expect(issues(withChange((draft) => (draft.domain = { lengthRatio: 0 })))[0]).toMatch(/^domain\.lengthRatio: Domain length must be greater than zero/)
+    expect(issues(withChange((draft) => ((draft.regime = 'external'), (draft.domain = { crossSection: 'pipe' }))))[0]).toMatch(/cross-section describes internal flow/)
+    expect(issues(withChange((draft) => (draft.domain = { span: 1, colour: 'red' })))[0]).toMatch(/^domain: Unrecognized key/)
+    expect(caseInputSchema.parse(valid).domain).toBeUndefined()
   })
 
   it('bounds turbulence intensity to (0, 0.5], growth ratio to [1.01, 2] and y+ to (0, 1000]', () => {

@@ -5,8 +5,9 @@ import type { Facts } from '../../../../shared/rules/facts'
 import { RULESET } from '../../../../shared/rules/ruleset'
 import type { Rule } from '../../../../shared/rules/ruleset-schema'
 
-const perApproach = <T>(value: T) => ({ dns: value, wrles: value, wmles: value, hybrid: value, urans: value, rans: value })
+const perApproach = <T>(value: T) => ({ dns: value, wrles: value, wmles: value, hybrid: value, urans: value, rans: value, laminar: value })
 
+const budgetRatio = { ...perApproach(0.5), dns: 500, wrles: 5, rans: 1 }
 const facts: Facts = {
   regime: 'external',
   geometry: 'streamlined',
@@ -15,14 +16,25 @@ const facts: Facts = {
   logReynolds: 7,
   reynoldsTurbulent: 1e5,
   mach: 0.1,
+  machRegime: 'incompressible',
+  flowState: 'turbulent',
+  boundaryLayerState: 'turbulent',
+  wakeState: 'none',
   deltaPlus: 5000,
+  roughnessPlus: 0,
+  roughnessRegime: 'smooth',
   relativeRoughness: 0,
+  application: 'general',
+  swirl: 'none',
+  dimensions: '3d',
+  crossSection: 'none',
   physics: { transition: false, heatTransfer: false, rotation: false, buoyancy: false, acoustics: false },
   quantities: ['forces'],
   budget: { coreHours: 1000, cores: 64, wallClockHours: 48 },
   coreHours: perApproach(100),
   cells: perApproach(1e6),
-  budgetRatio: { ...perApproach(0.5), dns: 500, wrles: 5 },
+  budgetRatio,
+  budgetLog: Object.fromEntries(Object.entries(budgetRatio).map(([id, ratio]) => [id, Math.log10(ratio)])) as Facts['budgetLog'],
   feasible: { ...perApproach(true), dns: false, wrles: false },
 }
 
@@ -35,10 +47,14 @@ describe('evaluating rules with json-logic', () => {
     expect(conditionHolds({ in: ['noise', { var: 'quantities' }] }, facts)).toBe(false)
   })
 
-  it('evaluates score expressions on the facts: the over-budget penalty is -60 beyond 100 times, -40 beyond 1, else 0', () => {
-    const outcome = evaluateRule(ruleById('over-budget'), facts)
+  it('evaluates score expressions on the facts: the budget term is -50 per decade over budget, at most -60 and at most +10 (our rule)', () => {
+    const outcome = evaluateRule(ruleById('budget-trade-off'), facts)
     expect(outcome.fired).toBe(true)
-    expect(outcome.effects.scores).toEqual({ dns: -60, wrles: -40, wmles: 0, hybrid: 0, urans: 0, rans: 0 })
+    const scores = outcome.effects.scores!
+    expect(scores.dns).toBe(-60) // 500 times over: -135 floored
+    expect(scores.wrles).toBeCloseTo(-50 * Math.log10(5), 10)
+    expect(scores.rans).toBeCloseTo(0, 10) // exactly on budget
+    expect(scores.wmles).toBe(10) // half the budget: +15 capped
   })
 
   it('reports what a rule would apply even when it does not fire', () => {
@@ -69,6 +85,6 @@ describe('evaluating rules with json-logic', () => {
       budget: { coreHours: 5000, cores: 64, wallClockHours: 100 },
     })
     const fired = advice.trace.filter((entry) => entry.fired).map((entry) => entry.rule)
-    expect(fired).toEqual(['attached-boundary-layers-suit-rans', 'streamlined-aerodynamics-one-equation-model', 'over-budget'])
+    expect(fired).toEqual(['attached-boundary-layers-suit-rans', 'attached-aerodynamics-sst', 'thick-layers-suit-wall-modelled-les', 'budget-trade-off'])
   })
 })

@@ -8,6 +8,9 @@ import {
   spaldingUPlus,
   spaldingYPlus,
   turbulentPlateThickness,
+  laminarPlateThickness,
+  ductThickness,
+  wallModelExchangeYPlus,
   wallDistance,
   wallShearStress,
   yPlusTargetFor,
@@ -54,15 +57,37 @@ describe('wall units', () => {
     expect(wallDistance(1, 1.5e-5, 0.5)).toBeCloseTo(3e-5, 15)
   })
 
-  it('turbulent plate thickness 0.37 x Re_x^-1/5 is 0.0233 x at Re_x = 1e6, within 6% of 0.16 Re_x^-1/7 (textbook 1/7 power laws, from memory)', () => {
-    expect(relative(turbulentPlateThickness(1, 1e6), 0.02334)).toBeLessThan(1e-3)
-    expect(relative(turbulentPlateThickness(1, 1e6), 0.16 * 1e6 ** (-1 / 7))).toBeLessThan(0.06)
+  it('one turbulent plate thickness, 0.16 x Re_x^-1/7 (White, from memory): 0.0222 x at Re_x = 1e6, within 6% of the 1/5-power 0.37 x Re_x^-1/5 there (textbook, from memory)', () => {
+    expect(relative(turbulentPlateThickness(1, 1e6), 0.02222)).toBeLessThan(1e-3)
+    expect(relative(turbulentPlateThickness(1, 1e6), 0.37 * 1e6 ** -0.2)).toBeLessThan(0.06)
+  })
+
+  it('laminar (Blasius) thickness 5.0 x Re_x^-1/2: 5 mm on 1 m at Re_x = 1e6 (textbook, from memory)', () => {
+    expect(laminarPlateThickness(1, 1e6)).toBeCloseTo(0.005, 12)
+  })
+
+  it('a duct layer is the radius of a pipe and the half-height of a plane channel, h = D_h / 4 (D_h = 4h between two walls)', () => {
+    expect(ductThickness(0.1, 'pipe')).toBe(0.05)
+    expect(ductThickness(0.04, 'channel')).toBe(0.01)
   })
 })
 
 describe('y+ targets', () => {
-  it('resolved wall: the first cell centre at y+ = 1 (common practice, no source)', () => {
+  it('resolved wall: the first cell centre at y+ = 1 for RANS (common practice, no source), a first cell one wall unit tall for DNS and wall-resolved LES (Georgiadis, Rizzetta & Fureby 2010: y1+ < 1)', () => {
     expect(yPlusTargetFor('resolved', 5000)).toBe(1)
+    expect(yPlusTargetFor('resolved', 5000, 'rans')).toBe(1)
+    expect(2 * yPlusTargetFor('resolved', 5000, 'dns')).toBeLessThanOrEqual(1)
+    expect(2 * yPlusTargetFor('resolved', 5000, 'wrles')).toBeLessThanOrEqual(1)
+  })
+
+  it('blended treatment: planned at the top of the sublayer, y+ = 5 (our choice, no source)', () => {
+    expect(yPlusTargetFor('blended', 5000)).toBe(5)
+  })
+
+  it('rough-wall functions keep the first cell centre above the roughness, y+ >= k_s+, inside the log layer (Blocken et al. 2007, from memory)', () => {
+    expect(yPlusTargetFor('rough-wall-function', 1e5, 'rans', 500)).toBe(500)
+    expect(yPlusTargetFor('rough-wall-function', 1e5, 'rans', 10)).toBe(yPlusTargetFor('wall-function', 1e5))
+    expect(yPlusTargetFor('rough-wall-function', 2000, 'rans', 5000)).toBe(200)
   })
 
   it('standard wall functions: inside 30-300 for every delta+ (Launder & Spalding 1974; common practice band)', () => {
@@ -82,10 +107,13 @@ describe('y+ targets', () => {
     }
   })
 
-  it('wall model: matched in the log layer, y+ >= 30, at delta/40 in thick layers (Larsson et al. 2016, Mech. Eng. Rev. 3: cells of delta/15-delta/30)', () => {
-    expect(yPlusTargetFor('wall-model', 500)).toBe(30)
+  it('wall model: cells of delta/20, first centre at delta/40 (Larsson et al. 2016: delta/15-delta/30), input taken at 0.1 delta and never below y+ = 30 (Kawai & Larsson 2012: 0.1-0.2 delta)', () => {
     expect(yPlusTargetFor('wall-model', 40000)).toBe(1000)
-    expect(yPlusTargetFor('wall-model', 40000)).toBeLessThan(0.1 * 40000)
+    expect(wallModelExchangeYPlus(40000)).toBe(4000)
+    expect(wallModelExchangeYPlus(500)).toBe(50)
+    expect(wallModelExchangeYPlus(200)).toBe(30)
+    // the exchange point lies several cells off the wall, which avoids the log-layer mismatch
+    expect(wallModelExchangeYPlus(40000) / yPlusTargetFor('wall-model', 40000)).toBeGreaterThanOrEqual(4)
   })
 })
 

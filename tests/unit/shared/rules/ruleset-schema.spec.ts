@@ -16,7 +16,7 @@ function rulesetWith(rules: unknown[]) {
   return {
     id: 'test-rules',
     version: '0.1.0',
-    baseScores: { dns: 50, wrles: 50, wmles: 50, hybrid: 50, urans: 50, rans: 50 },
+    baseScores: { dns: 50, wrles: 50, wmles: 50, hybrid: 50, urans: 50, rans: 50, laminar: 50 },
     baseWhy: 'Every approach starts level for this test.',
     rules,
   }
@@ -67,6 +67,19 @@ describe('ruleset schema', () => {
     expect(messages(rulesetWith([scoresInTreatment])).join(' ')).toMatch(/wall treatments and cautions only/)
     const impossibleTreatment = { ...minimalRule, stage: 'treatment', effects: { wallTreatment: { dns: 'wall-function' } } }
     expect(messages(rulesetWith([impossibleTreatment])).join(' ')).toMatch(/dns cannot use/)
+  })
+
+  it('keeps treatment rules to the physics: a cost fact in a treatment condition is refused', () => {
+    const budgetDriven = {
+      ...minimalRule,
+      id: 'budget-driven-treatment',
+      stage: 'treatment',
+      when: { '>': [{ var: 'budgetRatio.rans' }, 1] },
+      effects: { wallTreatment: { rans: 'wall-function' } },
+    }
+    expect(messages(rulesetWith([budgetDriven])).join(' ')).toMatch(/is a cost; treatment rules choose from the physics alone/)
+    const physicsDriven = { ...budgetDriven, when: { '>': [{ var: 'deltaPlus' }, 1e4] } }
+    expect(messages(rulesetWith([physicsDriven]))).toEqual([])
   })
 
   it('rejects a rule with no effect and a version that is not semantic', () => {
