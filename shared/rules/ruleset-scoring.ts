@@ -15,9 +15,9 @@ const noiseWanted = { or: [{ in: ['noise', { var: 'quantities' }] }, { var: 'phy
 const statisticsWanted = { in: ['statistics', { var: 'quantities' }] }
 const ALL = ['dns', 'wrles', 'wmles', 'hybrid', 'urans', 'rans', 'laminar'] as const
 
-/** -50 points per decade over budget and up to +10 with headroom: max(-60, min(10, -50 log10 r)). */
+/** -50 points per decade over budget, none within it: max(-60, min(0, -50 log10 r)). */
 function budgetTerm(approach: string) {
-  return { max: [-60, { min: [10, { '*': [-50, { var: `budgetLog.${approach}` }] }] }] }
+  return { max: [-60, { min: [0, { '*': [-50, { var: `budgetLog.${approach}` }] }] }] }
 }
 
 /** A bonus of `slope` points per decade below a tenth of the budget, up to `cap`. */
@@ -552,11 +552,11 @@ const BUDGET_RULES: RuleSource[] = [
     id: 'budget-trade-off',
     title: 'Cost against the budget, as a smooth trade-off',
     stage: 'scoring',
-    when: true,
+    when: { or: ALL.map((id) => ({ '>': [{ var: `budgetRatio.${id}` }, 1] })) },
     effects: { scores: Object.fromEntries(ALL.map((id) => [id, budgetTerm(id)])) },
     why:
-      'Each approach loses 50 points per decade by which it exceeds the budget (the larger of core-hours and wall-clock over their budgets), down to -60, and gains up to 10 points when it uses less than about two thirds of it. ' +
-      'A tenth more or less budget moves a score by about two points, never by a cliff.',
+      'An approach that exceeds the budget (the larger of core-hours and wall-clock over their budgets) loses 50 points per decade by which it exceeds it, down to -60; within the budget it loses nothing. ' +
+      'A tenth more or less budget moves a score by about two points, never by a cliff; which approach the budget allows is then settled by the recommendation, not by a penalty.',
     source: 'common practice, no source',
   },
 ]

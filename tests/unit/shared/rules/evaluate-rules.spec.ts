@@ -47,14 +47,14 @@ describe('evaluating rules with json-logic', () => {
     expect(conditionHolds({ in: ['noise', { var: 'quantities' }] }, facts)).toBe(false)
   })
 
-  it('evaluates score expressions on the facts: the budget term is -50 per decade over budget, at most -60 and at most +10 (our rule)', () => {
+  it('evaluates score expressions on the facts: the budget term is -50 per decade over budget, at most -60, and 0 within it (our rule)', () => {
     const outcome = evaluateRule(ruleById('budget-trade-off'), facts)
     expect(outcome.fired).toBe(true)
     const scores = outcome.effects.scores!
     expect(scores.dns).toBe(-60) // 500 times over: -135 floored
     expect(scores.wrles).toBeCloseTo(-50 * Math.log10(5), 10)
     expect(scores.rans).toBeCloseTo(0, 10) // exactly on budget
-    expect(scores.wmles).toBe(10) // half the budget: +15 capped
+    expect(scores.wmles).toBe(0) // half the budget: no change
   })
 
   it('reports what a rule would apply even when it does not fire', () => {
@@ -86,5 +86,6 @@ describe('evaluating rules with json-logic', () => {
     })
     const fired = advice.trace.filter((entry) => entry.fired).map((entry) => entry.rule)
     expect(fired).toEqual(['attached-boundary-layers-suit-rans', 'attached-aerodynamics-sst', 'thick-layers-suit-wall-modelled-les', 'budget-trade-off'])
+    expect(advice.trace.find((entry) => entry.rule === 'direct-simulation-within-reach')!.fired).toBe(false)
   })
 })

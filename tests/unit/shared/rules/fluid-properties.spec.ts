@@ -1,8 +1,12 @@
 import { describe, expect, it } from 'vitest'
 import {
+  TURBULENT_RECOVERY_FACTOR,
+  adiabaticWallTemperature,
   airDensity,
+  airReferenceState,
   airSpeedOfSound,
   airViscosity,
+  eckertReferenceTemperature,
   fluidState,
   waterDensity,
   waterViscosityIapws,
@@ -105,5 +109,33 @@ describe('custom fluid', () => {
 
   it('needs both density and viscosity', () => {
     expect(() => fluidState({ medium: 'custom', density: 870 })).toThrow(/density and viscosity/)
+  })
+})
+
+describe('compressible wall properties (reference-temperature method)', () => {
+  it('adiabatic wall at Mach 0.85 and 288 K is about 325 K with a turbulent recovery factor of about 0.89 (r = Pr^(1/3); textbook, from memory)', () => {
+    expect(TURBULENT_RECOVERY_FACTOR).toBeGreaterThan(0.88)
+    expect(TURBULENT_RECOVERY_FACTOR).toBeLessThan(0.9)
+    expect(Math.abs(adiabaticWallTemperature(288, 0.85) - 325)).toBeLessThan(1.5)
+  })
+
+  it("Eckert's T* = T_e + 0.5 (T_w - T_e) + 0.22 (T_aw - T_e): worked example 300, 400, 350 K gives 361 K (Eckert 1955, from memory; our arithmetic)", () => {
+    expect(eckertReferenceTemperature(300, 400, 350)).toBeCloseTo(361, 12)
+  })
+
+  it('at Mach 0.85 over an adiabatic wall the wall kinematic viscosity is 15-25% above the free stream, several-fold at Mach 5 (our estimate from Sutherland and the ideal gas)', () => {
+    const air = fluidState({ medium: 'air', temperatureK: 288 })
+    const transonic = airReferenceState(air, 101325, 0.85)
+    expect(transonic.wallKinematicViscosity / air.kinematicViscosity).toBeGreaterThan(1.15)
+    expect(transonic.wallKinematicViscosity / air.kinematicViscosity).toBeLessThan(1.25)
+    const cold = fluidState({ medium: 'air', temperatureK: 220 })
+    const hypersonic = airReferenceState(cold, 2000, 5)
+    expect(hypersonic.wallKinematicViscosity / cold.kinematicViscosity).toBeGreaterThan(4)
+  })
+
+  it('reduces to the free stream at low Mach over an adiabatic wall (T* within 0.1% at Mach 0.05)', () => {
+    const air = fluidState({ medium: 'air' })
+    const state = airReferenceState(air, 101325, 0.05)
+    expect(Math.abs(state.temperatureK / 293.15 - 1)).toBeLessThan(1e-3)
   })
 })

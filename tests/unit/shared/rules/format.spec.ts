@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { formatNumber, formatScoreChange } from '../../../../shared/rules/format'
+import { formatEstimate, formatNumber, formatScoreChange, roundToBand } from '../../../../shared/rules/format'
 
 describe('formatNumber', () => {
   it.each([
@@ -38,5 +38,19 @@ describe('formatNumber', () => {
   it('signs score changes', () => {
     expect(formatScoreChange(25)).toBe('+25')
     expect(formatScoreChange(-10)).toBe('-10')
+  })
+})
+
+describe('estimates rounded to their band (our convention, no source)', () => {
+  it('keeps one significant figure when uncertain by a factor of 3 or more, two otherwise', () => {
+    expect(roundToBand(4.87e6, 4.9)).toBe(5e6)
+    expect(roundToBand(4.87e6, 2)).toBeCloseTo(4.9e6, 0)
+    expect(roundToBand(1234, 3)).toBe(1000)
+    expect(roundToBand(0, 3)).toBe(0)
+  })
+
+  it('writes the value with its range', () => {
+    expect(formatEstimate(4.87e6, { low: 1e6, high: 2.4e7 }, 4.9)).toBe('about 5e6 (1e6 to 2e7)')
+    expect(formatEstimate(1234, { low: 617, high: 2468 }, 2)).toBe('about 1,200 (620 to 2,500)')
   })
 })

@@ -2,7 +2,9 @@ import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import {
   blasiusSkinFriction,
+  channelSkinFriction,
   colebrookFriction,
+  deanChannelSkinFriction,
   flatPlateSkinFriction,
   haalandFriction,
   pipeDarcyFriction,
@@ -89,5 +91,16 @@ describe('pipe', () => {
 
   it('roughness raises friction (Moody 1944 chart, from memory)', () => {
     expect(pipeDarcyFriction(1e6, 1e-3)).toBeGreaterThan(pipeDarcyFriction(1e6))
+  })
+})
+
+describe('plane channel', () => {
+  it("Dean's Cf = 0.073 Re_2h^-1/4 (Dean 1978, J. Fluids Eng. 100, 215) is within 3% of Kim, Moin & Moser 1987 at Re_b = 5600: Cf = 2 (Re_tau / (Re_b / 2))^2 = 8.27e-3 (our arithmetic from Re_tau = 180)", () => {
+    expect(relative(deanChannelSkinFriction(5600), 2 * (180 / 2800) ** 2)).toBeLessThan(0.03)
+  })
+
+  it('is laminar Poiseuille flow, Cf = 12 / Re_2h, below Re_Dh = 2300 (textbook), and Dean above', () => {
+    expect(channelSkinFriction(2000)).toBeCloseTo(12 / 1000, 15)
+    expect(channelSkinFriction(11200)).toBeCloseTo(deanChannelSkinFriction(5600), 15)
   })
 })
