@@ -8,6 +8,7 @@ import { evaluateStage, type RuleOutcome } from './evaluate-rules'
 import type { Facts } from './facts'
 import { formatScoreChange } from './format'
 import { RULESET } from './ruleset'
+import type { Rule } from './ruleset-schema'
 
 export interface ScoringStage {
   /** unclamped totals */
@@ -23,12 +24,27 @@ function points(change: number): string {
   return formatScoreChange(Math.round(change * 10) / 10)
 }
 
+/** The end of a rule's reason line, written once per rule. */
+const reasonTails = new WeakMap<Rule, string>()
+
+function reasonTail(rule: Rule): string {
+  let tail = reasonTails.get(rule)
+  if (tail === undefined) {
+    tail = `: ${rule.title} (rule ${rule.id}).`
+    reasonTails.set(rule, tail)
+  }
+  return tail
+}
+
 export function scoringStage(facts: Facts): ScoringStage {
   const outcomes = evaluateStage(RULESET, 'scoring', facts)
   const models = defaultModels()
-  const totals = { ...RULESET.baseScores } as Record<ApproachId, number>
+  const totals = {} as Record<ApproachId, number>
   const reasons = {} as Record<ApproachId, string[]>
-  for (const id of APPROACH_IDS) reasons[id] = [`Starts at ${RULESET.baseScores[id]} (the ruleset's base score).`]
+  for (const id of APPROACH_IDS) {
+    totals[id] = RULESET.baseScores[id]
+    reasons[id] = [`Starts at ${RULESET.baseScores[id]} (the ruleset's base score).`]
+  }
   const cautions: string[] = []
   for (const outcome of outcomes) {
     if (!outcome.fired) continue
@@ -37,7 +53,7 @@ export function scoringStage(facts: Facts): ScoringStage {
       const change = changes[id as ApproachId]!
       if (change === 0) continue
       totals[id as ApproachId] += change
-      reasons[id as ApproachId].push(`${points(change)}: ${outcome.rule.title} (rule ${outcome.rule.id}).`)
+      reasons[id as ApproachId].push(points(change) + reasonTail(outcome.rule))
     }
     const chosen = outcome.effects.models
     for (const id in chosen) models[id as ApproachId] = chosen[id as ApproachId]!

@@ -12,7 +12,7 @@ import type { Advice, ApproachAdvice, TraceEntry } from './advice-types'
 import { pushUnique, treatmentStage, type TreatmentStage } from './advise-treatments'
 import { scoringStage, type ScoringStage } from './advise-scoring'
 import { GENERAL_CAUTIONS } from './cautions'
-import { caseInputSchema, type CaseInput, type CaseInputDraft } from './case-input'
+import { parseCaseInput, type CaseInput, type CaseInputDraft } from './case-input'
 import { computedCautions } from './computed-cautions'
 import { costCaseFor, type CostCase } from './cost-case'
 import { approachCost, type ApproachCost } from './cost-model'
@@ -35,9 +35,22 @@ function costsFor(input: CaseInput, flow: CostCase, treatments: Record<ApproachI
   return costs
 }
 
+/** Trace entries of rules with constant effects are the same for every advice: built once, frozen and shared. */
+const sharedEntries = new WeakMap<RuleOutcome['effects'], { fired?: TraceEntry; quiet?: TraceEntry }>()
+
 function traceEntry(outcome: RuleOutcome): TraceEntry {
-  const { rule } = outcome
-  return { rule: rule.id, title: rule.title, stage: rule.stage, fired: outcome.fired, effects: outcome.effects, why: rule.why, source: rule.source }
+  const { rule, effects, fired } = outcome
+  const shareable = Object.isFrozen(effects)
+  const cached = shareable ? sharedEntries.get(effects) : undefined
+  const hit = cached && (fired ? cached.fired : cached.quiet)
+  if (hit) return hit
+  const entry: TraceEntry = { rule: rule.id, title: rule.title, stage: rule.stage, fired, effects, why: rule.why, source: rule.source }
+  if (!shareable) return entry
+  const slot = cached ?? {}
+  if (fired) slot.fired = Object.freeze(entry)
+  else slot.quiet = Object.freeze(entry)
+  sharedEntries.set(effects, slot)
+  return entry
 }
 
 interface EntryContext {
@@ -54,11 +67,11 @@ function approachEntry(id: ApproachId, context: EntryContext): ApproachAdvice {
   const cost = costs[id]
   const total = scoring.totals[id]
   const score = Math.round(Math.min(100, Math.max(0, total)) * 10) / 10
-  const reasons = [...scoring.reasons[id]]
+  const reasons = scoring.reasons[id]
   if (score !== Math.round(total * 10) / 10) reasons.push(`The total of ${Math.round(total * 10) / 10} is clamped to ${score}.`)
   const rule = treatment.ruleOf[id]
   if (rule) reasons.push(`Wall treatment: ${WALL_TREATMENT_LABELS[treatment.treatments[id]]} (rule ${rule.id}).`)
-  reasons.push(...costReasons(id, cost, context.input, treatment.treatments[id], context.text), ...context.shared)
+  reasons.push(...costReasons(cost, context.input, treatment.treatments[id], context.text), ...context.shared)
   return {
     id,
     label: APPROACH_LABELS[id],
@@ -141,5 +154,5 @@ export function adviseParsed(input: CaseInput): Advice {
  * invalid case throws a ZodError with per-field messages.
  */
 export function advise(input: CaseInputDraft | CaseInput): Advice {
-  return adviseParsed(caseInputSchema.parse(input))
+  return adviseParsed(parseCaseInput(input))
 }

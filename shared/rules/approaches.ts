@@ -99,9 +99,11 @@ export const WALL_TREATMENTS_BY_APPROACH: Readonly<Record<ApproachId, readonly W
   laminar: ['resolved'],
 }
 
-// Each approach's default is the first of its list.
+// Each approach's default is the first of its list; a fresh, writable record per call.
 function firstOfEach<T>(lists: Record<ApproachId, readonly T[]>): Record<ApproachId, T> {
-  return Object.fromEntries(APPROACH_IDS.map((id) => [id, lists[id][0]!])) as Record<ApproachId, T>
+  const firsts = {} as Record<ApproachId, T>
+  for (const id of APPROACH_IDS) firsts[id] = lists[id][0]!
+  return firsts
 }
 
 export function defaultWallTreatments(): Record<ApproachId, WallTreatment> {

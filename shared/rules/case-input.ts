@@ -103,7 +103,8 @@ const budgetSchema = z.object(
   { required_error: 'Budget is required.', invalid_type_error: 'Budget must give core-hours, cores and wall-clock hours.' },
 )
 
-export const caseInputSchema = z
+/** The fields of a case, without the checks that relate one field to another. */
+const caseInputFields = z
   .object({
     regime: choice(['external', 'internal'], 'Flow regime'),
     fluid: fluidSchema,
@@ -147,35 +148,57 @@ export const caseInputSchema = z
     /** the kind of flow, when the engine should not infer it from the other fields */
     application: choice(APPLICATIONS, 'Application').optional(),
   })
-  .superRefine((input, ctx) => {
-    checkFluid(input.fluid, ctx)
-    checkRoughness(input, ctx)
-    if (input.domain?.crossSection !== undefined && input.regime !== 'internal') {
-      issue(ctx, ['domain', 'crossSection'], 'A cross-section describes internal flow; leave it empty for external flow.')
-    }
-  })
 
-function issue(ctx: z.RefinementCtx, path: (string | number)[], message: string): void {
-  ctx.addIssue({ code: z.ZodIssueCode.custom, path, message })
+type Issues = z.IssueData[]
+type CaseFields = z.output<typeof caseInputFields>
+
+function issue(issues: Issues, path: (string | number)[], message: string): void {
+  issues.push({ code: z.ZodIssueCode.custom, path, message })
+}
+
+/** The checks that relate fields to each other, on a case whose fields are each valid. */
+function crossFieldIssues(input: CaseFields): Issues {
+  const issues: Issues = []
+  checkFluid(input.fluid, issues)
+  checkRoughness(input, issues)
+  if (input.domain?.crossSection !== undefined && input.regime !== 'internal') {
+    issue(issues, ['domain', 'crossSection'], 'A cross-section describes internal flow; leave it empty for external flow.')
+  }
+  return issues
+}
+
+export const caseInputSchema = caseInputFields.superRefine((input, ctx) => {
+  for (const found of crossFieldIssues(input)) ctx.addIssue(found)
+})
+
+/**
+ * caseInputSchema.parse without zod's refinement wrapper, which costs more than the rest of the
+ * parse: the same fields, defaults, checks and ZodError issues.
+ */
+export function parseCaseInput(input: unknown): CaseFields {
+  const fields = caseInputFields.parse(input)
+  const issues = crossFieldIssues(fields)
+  if (issues.length > 0) throw new z.ZodError(issues.map((found) => ({ ...found, message: found.message ?? '' }) as z.ZodIssue))
+  return fields
 }
 
 type FluidInput = z.output<typeof fluidSchema>
 
-function checkFluid(fluid: FluidInput, ctx: z.RefinementCtx): void {
+function checkFluid(fluid: FluidInput, issues: Issues): void {
   if (fluid.medium === 'custom') {
-    if (fluid.density === undefined) issue(ctx, ['fluid', 'density'], 'Density is required for a custom fluid.')
-    if (fluid.viscosity === undefined) issue(ctx, ['fluid', 'viscosity'], 'Dynamic viscosity is required for a custom fluid.')
+    if (fluid.density === undefined) issue(issues, ['fluid', 'density'], 'Density is required for a custom fluid.')
+    if (fluid.viscosity === undefined) issue(issues, ['fluid', 'viscosity'], 'Dynamic viscosity is required for a custom fluid.')
   }
   if (fluid.medium === 'water' && fluid.temperatureK !== undefined) {
     const { min, max } = WATER_TEMPERATURE_RANGE
     if (fluid.temperatureK < min || fluid.temperatureK > max) {
-      issue(ctx, ['fluid', 'temperatureK'], `Water is covered as a liquid from ${min} K (0 °C) to ${max} K (100 °C) at ordinary pressure.`)
+      issue(issues, ['fluid', 'temperatureK'], `Water is covered as a liquid from ${min} K (0 °C) to ${max} K (100 °C) at ordinary pressure.`)
     }
   }
   if (fluid.medium === 'air' && fluid.temperatureK !== undefined) {
     const { min, max } = SUTHERLAND_TEMPERATURE_RANGE
     if (fluid.temperatureK < min || fluid.temperatureK > max) {
-      issue(ctx, ['fluid', 'temperatureK'], `Sutherland's law for air holds from about ${min} K to ${max} K.`)
+      issue(issues, ['fluid', 'temperatureK'], `Sutherland's law for air holds from about ${min} K to ${max} K.`)
     }
   }
 }
@@ -187,27 +210,27 @@ interface RoughnessInput {
   roughnessLength?: number | undefined
 }
 
-function checkRoughness(input: RoughnessInput, ctx: z.RefinementCtx): void {
+function checkRoughness(input: RoughnessInput, issues: Issues): void {
   const roughness = input.roughness ?? 0
   if (input.roughnessLength !== undefined) {
-    if (roughness > 0) issue(ctx, ['roughnessLength'], 'Give either the sand-grain roughness height or the roughness length z0, not both.')
+    if (roughness > 0) issue(issues, ['roughnessLength'], 'Give either the sand-grain roughness height or the roughness length z0, not both.')
     if (input.regime !== 'external') {
-      issue(ctx, ['roughnessLength'], 'The roughness length z0 describes terrain under an atmospheric boundary layer (external flow); for a duct give the sand-grain roughness height.')
+      issue(issues, ['roughnessLength'], 'The roughness length z0 describes terrain under an atmospheric boundary layer (external flow); for a duct give the sand-grain roughness height.')
     } else if (input.roughnessLength > MAX_ROUGHNESS_LENGTH_FRACTION * input.length) {
-      issue(ctx, ['roughnessLength'], `A roughness length above ${MAX_ROUGHNESS_LENGTH_FRACTION} of the reference length describes obstacles, not roughness; model them.`)
+      issue(issues, ['roughnessLength'], `A roughness length above ${MAX_ROUGHNESS_LENGTH_FRACTION} of the reference length describes obstacles, not roughness; model them.`)
     }
   }
   if (roughness <= 0) return
   if (input.regime === 'internal' && roughness / input.length > MAX_RELATIVE_ROUGHNESS) {
-    issue(ctx, ['roughness'], `Relative roughness k/D above ${MAX_RELATIVE_ROUGHNESS} is beyond the range of the Colebrook-White equation.`)
+    issue(issues, ['roughness'], `Relative roughness k/D above ${MAX_RELATIVE_ROUGHNESS} is beyond the range of the Colebrook-White equation.`)
   }
   if (input.regime === 'external' && roughness / input.length > MAX_EXTERNAL_ROUGHNESS_FRACTION) {
-    issue(ctx, ['roughness'], `Roughness above ${MAX_EXTERNAL_ROUGHNESS_FRACTION} of the reference length is an obstacle, not roughness; model it.`)
+    issue(issues, ['roughness'], `Roughness above ${MAX_EXTERNAL_ROUGHNESS_FRACTION} of the reference length is an obstacle, not roughness; model it.`)
   }
 }
 
 /** A case with defaults applied (what the engine works on). */
-export type CaseInput = z.output<typeof caseInputSchema>
+export type CaseInput = CaseFields
 /** A case as the form or a caller may send it, defaults not yet applied. */
 export type CaseInputDraft = z.input<typeof caseInputSchema>
 /** The optional domain description. */

@@ -12,6 +12,8 @@ import type { FlowState, WakeState } from './regime'
 export type Separation = CaseInput['separation']
 
 export interface CostCase {
+  /** the scale-resolving meshes, filled in on first use (mesh-resolving.ts) */
+  resolvingMeshes?: Record<'dns' | 'wrles' | 'wmles', { cells: number; finestCell: number }>
   regime: CaseInput['regime']
   geometry: Geometry
   separation: Separation
@@ -66,5 +68,6 @@ export function costCaseFor(input: CaseInput, physics: FlowPhysics): CostCase {
     sharpEdged: input.geometry === 'complex' || physics.application.application === 'atmospheric',
     lowestFrequencyHz: input.lowestFrequencyHz ?? null,
     timeIntegration: input.timeIntegration ?? null,
+    resolvingMeshes: undefined,
   }
 }

@@ -3,7 +3,7 @@
  * would need, with the same figures and ranges advise() gives for its own choices.
  */
 import type { ApproachId, WallTreatment } from './approaches'
-import { caseInputSchema, type CaseInput, type CaseInputDraft } from './case-input'
+import { parseCaseInput, type CaseInput, type CaseInputDraft } from './case-input'
 import { costCaseFor } from './cost-case'
 import { approachCost, type ApproachCost } from './cost-model'
 import { flowPhysics } from './flow-physics'
@@ -20,6 +20,6 @@ export function costFor(
   wallTreatment: WallTreatment,
   yPlusTarget?: number,
 ): ApproachCostFigures {
-  const parsed = caseInputSchema.parse(input)
+  const parsed = parseCaseInput(input)
   return approachCost(approach, costCaseFor(parsed, flowPhysics(parsed)), wallTreatment, parsed.budget, yPlusTarget)
 }

@@ -102,30 +102,33 @@ interface Plan {
   startIterations: number
 }
 
+// Plans are built field by field: object spreads are slow in this hot path.
+function planOf(cells: number, layers: number | null, yPlusTarget: number, finestCell: number, twoDimensional: boolean, time: TimePlan, startIterations: number): Plan {
+  return { cells, layers, yPlusTarget, finestCell, twoDimensional, time, startIterations }
+}
+
 function resolvingPlan(approach: 'dns' | 'wrles' | 'wmles', flow: CostCase, yPlusTarget: number): Plan {
   const mesh = resolvingMeshes(flow)[approach]
   const time = unsteadyPlan(flow, resolvingTime(flow), RESOLVING_CFL, mesh.finestCell, acousticFactor(approach, flow), 1)
-  return { cells: mesh.cells, layers: null, yPlusTarget, finestCell: mesh.finestCell, twoDimensional: false, time, startIterations: 0 }
+  return planOf(mesh.cells, null, yPlusTarget, mesh.finestCell, false, time, 0)
 }
 
 function laminarSteady(flow: CostCase): boolean {
   return flow.wake === 'steady' || (flow.wake === 'none' && flow.flowState === 'laminar')
 }
 
+function modelledTime(approach: ApproachId, flow: CostCase, finestCell: number): TimePlan {
+  if (approach === 'rans') return steadyPlan(RANS_ITERATIONS[flow.separation])
+  if (approach === 'urans') return unsteadyPlan(flow, periodicTime(flow), URANS_CFL, finestCell, 1, URANS_INNER_ITERATIONS)
+  if (approach === 'hybrid') return unsteadyPlan(flow, resolvingTime(flow), IMPLICIT_RESOLVING_CFL, finestCell, 1, HYBRID_INNER_ITERATIONS)
+  if (laminarSteady(flow)) return steadyPlan(STEADY_LAMINAR_ITERATIONS)
+  return unsteadyPlan(flow, periodicTime(flow), IMPLICIT_RESOLVING_CFL, finestCell, 1, 1)
+}
+
 function modelledPlan(approach: ApproachId, flow: CostCase, wallTreatment: WallTreatment, yPlusTarget?: number): Plan {
   const mesh = modelledMesh(approach, flow, wallTreatment, yPlusTarget)
-  const shared = { cells: mesh.cells, layers: mesh.layers, yPlusTarget: mesh.yPlusTarget, finestCell: mesh.finestCell, twoDimensional: mesh.planar }
-  if (approach === 'rans') return { ...shared, time: steadyPlan(RANS_ITERATIONS[flow.separation]), startIterations: 0 }
-  if (approach === 'urans') {
-    const time = unsteadyPlan(flow, periodicTime(flow), URANS_CFL, mesh.finestCell, 1, URANS_INNER_ITERATIONS)
-    return { ...shared, time, startIterations: RANS_ITERATIONS[flow.separation] }
-  }
-  if (approach === 'hybrid') {
-    const time = unsteadyPlan(flow, resolvingTime(flow), IMPLICIT_RESOLVING_CFL, mesh.finestCell, 1, HYBRID_INNER_ITERATIONS)
-    return { ...shared, time, startIterations: 0 }
-  }
-  if (laminarSteady(flow)) return { ...shared, time: steadyPlan(STEADY_LAMINAR_ITERATIONS), startIterations: 0 }
-  return { ...shared, time: unsteadyPlan(flow, periodicTime(flow), IMPLICIT_RESOLVING_CFL, mesh.finestCell, 1, 1), startIterations: 0 }
+  const start = approach === 'urans' ? RANS_ITERATIONS[flow.separation] : 0
+  return planOf(mesh.cells, mesh.layers, mesh.yPlusTarget, mesh.finestCell, mesh.planar, modelledTime(approach, flow, mesh.finestCell), start)
 }
 
 /** Core-seconds per cell per physical step (per iteration for steady solutions), inner iterations included. */
@@ -155,11 +158,16 @@ function band(value: number, factor: number): Range {
   return { low: bounded(value / factor), high: bounded(value * factor) }
 }
 
-function combined(...factors: number[]): number {
+/** Independent factors combined: exp(sqrt(sum of ln^2)). */
+export function combinedFactor(factors: readonly number[]): number {
   let sum = 0
   for (const factor of factors) sum += Math.log(factor) ** 2
   return Math.exp(Math.sqrt(sum))
 }
+
+/** Core-hour factors of resolving (and hybrid) and of modelled approaches, computed once. */
+const HOURS_FACTOR_RESOLVING = combinedFactor([UNCERTAINTY.resolvingCells, UNCERTAINTY.steps, UNCERTAINTY.rate])
+const HOURS_FACTOR_MODELLED = combinedFactor([UNCERTAINTY.modelledCells, UNCERTAINTY.steps, UNCERTAINTY.rate])
 
 /** Full cost of one approach against the budget. */
 export function approachCost(approach: ApproachId, flow: CostCase, wallTreatment: WallTreatment, budget: Budget, yPlusTarget?: number): ApproachCost {
@@ -169,11 +177,19 @@ export function approachCost(approach: ApproachId, flow: CostCase, wallTreatment
   const coreSeconds = plan.cells * (time.steps * rate + plan.startIterations * RANS_CORE_SECONDS_PER_CELL_ITERATION)
   const coreHours = bounded(coreSeconds / 3600)
   const wallClockHours = bounded(coreHours / budget.cores)
-  const cellFactor = RESOLVING_APPROACHES.has(approach) || approach === 'hybrid' ? UNCERTAINTY.resolvingCells : UNCERTAINTY.modelledCells
-  const hoursFactor = combined(cellFactor, UNCERTAINTY.steps, UNCERTAINTY.rate)
+  const resolving = RESOLVING_APPROACHES.has(approach) || approach === 'hybrid'
+  const cellFactor = resolving ? UNCERTAINTY.resolvingCells : UNCERTAINTY.modelledCells
+  const hoursFactor = resolving ? HOURS_FACTOR_RESOLVING : HOURS_FACTOR_MODELLED
   const memoryGB = bounded((plan.cells * bytesPerCell(approach)) / 1e9)
   return {
-    ...time,
+    timeStep: time.timeStep,
+    simulatedTime: time.simulatedTime,
+    flowThroughs: time.flowThroughs,
+    periods: time.periods,
+    steps: time.steps,
+    innerIterations: time.innerIterations,
+    cfl: time.cfl,
+    acousticFactor: time.acousticFactor,
     cells: bounded(plan.cells),
     timeSteps: bounded(time.steps),
     coreHours,

@@ -6,7 +6,7 @@
  */
 import { APPROACH_IDS, defaultWallTreatments, type ApproachId, type WallTreatment } from './approaches'
 import { adviseParsed } from './advise'
-import { caseInputSchema, type CaseInput, type CaseInputDraft } from './case-input'
+import { parseCaseInput, type CaseInput, type CaseInputDraft } from './case-input'
 import { costCaseFor } from './cost-case'
 import { approachCost } from './cost-model'
 import { flowPhysics } from './flow-physics'
@@ -33,7 +33,7 @@ export function costSweep(input: CaseInput | CaseInputDraft, options: CostSweepO
   if (!(Number.isInteger(points) && points >= 2 && points <= 201)) {
     throw new RangeError('points must be a whole number from 2 to 201.')
   }
-  const parsed = caseInputSchema.parse(input)
+  const parsed = parseCaseInput(input)
   const advice = adviseParsed(parsed)
   const treatments: Record<ApproachId, WallTreatment> = { ...defaultWallTreatments() }
   for (const entry of advice.approaches) treatments[entry.id] = entry.wallTreatment

@@ -20,7 +20,8 @@ export interface RuleOutcome {
   fired: boolean
   /**
    * For a fired rule, what it applied; for one that did not fire, what it would have applied on
-   * these facts. Frozen and possibly shared between calls when the rule comes from the frozen RULESET.
+   * these facts, except that score changes computed from the facts are worked out only when the
+   * rule fires. Frozen and possibly shared between calls when the rule comes from the frozen RULESET.
    */
   effects: AppliedEffects
 }
@@ -38,8 +39,11 @@ function scoreChange(rule: Rule, approach: ApproachId, change: unknown, facts: P
   return value
 }
 
-/** Effects of rules whose score changes are all constants: the same on any facts, computed once and frozen. */
-const constantEffects = new WeakMap<Rule, AppliedEffects>()
+/**
+ * Effects of rules whose score changes are all constants: the same on any facts, computed once and
+ * frozen. `null` marks a frozen rule with computed score changes, evaluated on every call.
+ */
+const constantEffects = new WeakMap<Rule, AppliedEffects | null>()
 
 function hasComputedScores(rule: Rule): boolean {
   for (const approach in rule.effects.scores) {
@@ -48,10 +52,10 @@ function hasComputedScores(rule: Rule): boolean {
   return false
 }
 
-function appliedEffects(rule: Rule, facts: PhysicsFacts | Facts): AppliedEffects {
+function appliedEffects(rule: Rule, facts: PhysicsFacts | Facts, withScores = true): AppliedEffects {
   const declared = rule.effects
   const effects: { -readonly [K in keyof AppliedEffects]: AppliedEffects[K] } = {}
-  if (declared.scores) {
+  if (declared.scores && withScores) {
     const scores: Partial<Record<ApproachId, number>> = {}
     for (const approach in declared.scores) {
       const change = declared.scores[approach as ApproachId]
@@ -62,17 +66,19 @@ function appliedEffects(rule: Rule, facts: PhysicsFacts | Facts): AppliedEffects
   if (declared.models) effects.models = declared.models
   if (declared.wallTreatment) effects.wallTreatment = declared.wallTreatment
   if (declared.cautions) effects.cautions = declared.cautions
-  return Object.isFrozen(rule) ? Object.freeze(effects) : effects
+  return effects
 }
 
 export function evaluateRule(rule: Rule, facts: PhysicsFacts | Facts): RuleOutcome {
   const fired = conditionHolds(rule.when, facts)
-  let effects = constantEffects.get(rule)
-  if (!effects) {
-    effects = appliedEffects(rule, facts)
-    if (Object.isFrozen(rule) && !hasComputedScores(rule)) constantEffects.set(rule, effects)
+  let cached = constantEffects.get(rule)
+  if (cached === undefined && Object.isFrozen(rule)) {
+    cached = hasComputedScores(rule) ? null : Object.freeze(appliedEffects(rule, facts))
+    constantEffects.set(rule, cached)
   }
-  return { rule, fired, effects }
+  if (cached) return { rule, fired, effects: cached }
+  // A frozen rule with computed scores works them out only when it fires; others always.
+  return { rule, fired, effects: appliedEffects(rule, facts, fired || cached === undefined) }
 }
 
 /** Outcomes of every rule of a stage, in ruleset order. */

@@ -123,5 +123,33 @@ export function withCostFacts(facts: PhysicsFacts, budget: CaseInput['budget'], 
     budgetLog[id] = Math.log10(Math.max(cost.budgetRatio, 1e-300))
     feasible[id] = cost.feasible
   }
-  return { ...facts, budget, coreHours, cells, budgetRatio, budgetLog, feasible }
+  return {
+    regime: facts.regime,
+    geometry: facts.geometry,
+    separation: facts.separation,
+    reynolds: facts.reynolds,
+    logReynolds: facts.logReynolds,
+    reynoldsTurbulent: facts.reynoldsTurbulent,
+    mach: facts.mach,
+    machRegime: facts.machRegime,
+    flowState: facts.flowState,
+    boundaryLayerState: facts.boundaryLayerState,
+    wakeState: facts.wakeState,
+    deltaPlus: facts.deltaPlus,
+    roughnessPlus: facts.roughnessPlus,
+    roughnessRegime: facts.roughnessRegime,
+    relativeRoughness: facts.relativeRoughness,
+    application: facts.application,
+    swirl: facts.swirl,
+    dimensions: facts.dimensions,
+    crossSection: facts.crossSection,
+    physics: facts.physics,
+    quantities: facts.quantities,
+    budget,
+    coreHours,
+    cells,
+    budgetRatio,
+    budgetLog,
+    feasible,
+  }
 }

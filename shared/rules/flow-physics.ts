@@ -97,11 +97,12 @@ export function flowPhysics(input: CaseInput, velocity = input.velocity): FlowPh
   const roughness = sandGrainHeight(input)
   const basis = wallBasis(input, domain, regime, referenceReynolds, roughness)
   const wall = wallUnits({
-    ...basis,
+    skinFriction: basis.skinFriction,
+    boundaryLayerThickness: basis.boundaryLayerThickness,
     density: reference ? reference.wallDensity : fluid.density,
     kinematicViscosity: reference ? reference.wallKinematicViscosity : fluid.kinematicViscosity,
     velocity,
-    ...(reference ? { shearDensity: reference.density } : {}),
+    shearDensity: reference ? reference.density : undefined,
   })
   const reynoldsTurbulent = input.turbulenceIntensity * reynolds
   const external = input.regime === 'external'

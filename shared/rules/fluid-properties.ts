@@ -218,13 +218,15 @@ export interface ReferenceState {
  * temperature and wall units at the wall temperature, at the free-stream pressure (boundary-layer
  * approximation). Clamped to Sutherland's range.
  */
+function withinSutherland(temperatureK: number): number {
+  return Math.min(SUTHERLAND_TEMPERATURE_RANGE.max, Math.max(SUTHERLAND_TEMPERATURE_RANGE.min, temperatureK))
+}
+
 export function airReferenceState(fluid: FluidState, pressurePa: number, mach: number, wallTemperatureK?: number): ReferenceState {
   const edge = fluid.temperatureK ?? DEFAULT_TEMPERATURE
-  const { min, max } = SUTHERLAND_TEMPERATURE_RANGE
-  const clamp = (t: number) => Math.min(max, Math.max(min, t))
   const adiabatic = adiabaticWallTemperature(edge, mach)
-  const wall = clamp(wallTemperatureK ?? adiabatic)
-  const reference = clamp(eckertReferenceTemperature(edge, wall, adiabatic))
+  const wall = withinSutherland(wallTemperatureK ?? adiabatic)
+  const reference = withinSutherland(eckertReferenceTemperature(edge, wall, adiabatic))
   const wallDensity = airDensity(wall, pressurePa)
   return {
     temperatureK: reference,

@@ -197,20 +197,21 @@ export function regionCells(flow: CostCase, spacing: number): number {
   return fine / spacing ** 3 + wake / wakeSpacing ** 3
 }
 
-const cache = new WeakMap<CostCase, Record<ResolvingId, ResolvedMesh>>()
+function meshOf(id: ResolvingId, flow: CostCase, wall: WallPart, spacing: LayerDensity): ResolvedMesh {
+  const separated = REGION_VOLUMES[flow.separation].fine > 0
+  return {
+    cells: Math.max(MIN_RESOLVING_CELLS, wall.cells[id] + regionCells(flow, spacing[id])),
+    finestCell: separated ? Math.min(wall.finest[id], spacing[id]) : wall.finest[id],
+  }
+}
 
-/** The meshes of DNS, wall-resolved and wall-modelled LES for a case (cached per case object). */
+/** The meshes of DNS, wall-resolved and wall-modelled LES for a case (kept on the case object after the first call). */
 export function resolvingMeshes(flow: CostCase): Record<ResolvingId, ResolvedMesh> {
-  const cached = cache.get(flow)
+  const cached = flow.resolvingMeshes
   if (cached) return cached
   const wall = flow.regime === 'external' ? externalWall(flow) : internalWall(flow)
   const spacing = regionSpacing(flow)
-  const separated = REGION_VOLUMES[flow.separation].fine > 0
-  const mesh = (id: ResolvingId): ResolvedMesh => ({
-    cells: Math.max(MIN_RESOLVING_CELLS, wall.cells[id] + regionCells(flow, spacing[id])),
-    finestCell: separated ? Math.min(wall.finest[id], spacing[id]) : wall.finest[id],
-  })
-  const meshes = { dns: mesh('dns'), wrles: mesh('wrles'), wmles: mesh('wmles') }
-  cache.set(flow, meshes)
+  const meshes = { dns: meshOf('dns', flow, wall, spacing), wrles: meshOf('wrles', flow, wall, spacing), wmles: meshOf('wmles', flow, wall, spacing) }
+  flow.resolvingMeshes = meshes
   return meshes
 }

@@ -117,7 +117,7 @@ export function wallUnits(args: {
   kinematicViscosity: number
   velocity: number
   boundaryLayerThickness: number
-  shearDensity?: number
+  shearDensity?: number | undefined
 }): WallUnits {
   const shear = wallShearStress(args.skinFriction, args.shearDensity ?? args.density, args.velocity)
   const uTau = frictionVelocity(shear, args.density)

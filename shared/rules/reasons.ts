@@ -2,11 +2,11 @@
  * The sentences of an approach's reasons: its mesh, time plan and cost with their ranges, the
  * budget, and notes about the flow that apply to every approach.
  */
-import { WALL_TREATMENT_LABELS, type ApproachId, type WallTreatment } from './approaches'
+import { WALL_TREATMENT_LABELS, type WallTreatment } from './approaches'
 import type { CaseInput } from './case-input'
 import { MIN_CELLS_PER_CORE, type ApproachCost } from './cost-model'
 import type { FlowPhysics } from './flow-physics'
-import { formatEstimate, formatNumber } from './format'
+import { formatEstimate, formatNumber, roundToBand } from './format'
 import { SCHLICHTING_MAX_REYNOLDS } from './skin-friction'
 
 /** The budget as written in the reasons, formatted once per advice. */
@@ -20,39 +20,26 @@ export function budgetText(budget: CaseInput['budget']): BudgetText {
   return { coreHours: formatNumber(budget.coreHours), cores: formatNumber(budget.cores), wallClockHours: formatNumber(budget.wallClockHours) }
 }
 
-/** Seconds as a short duration: "2.4e-5 s", "3.1 s", "45 min", "2.5 h". */
-export function formatSeconds(seconds: number): string {
-  if (seconds < 60) return `${formatNumber(seconds)} s`
-  if (seconds < 7200) return `${formatNumber(seconds / 60)} min`
-  return `${formatNumber(seconds / 3600)} h`
+/** The wall-treatment labels in lower case, for the middle of a sentence. */
+const LOWER_LABELS = Object.fromEntries(Object.entries(WALL_TREATMENT_LABELS).map(([id, label]) => [id, label.toLowerCase()])) as Record<WallTreatment, string>
+
+/** The time plan in a few words: steps, and the simulated span when unsteady (the figures themselves are fields of the advice). */
+function timeWords(cost: ApproachCost): string {
+  if (cost.timeStep === null || cost.periods === null && cost.flowThroughs === null) return `${formatNumber(cost.timeSteps)} iterations`
+  const span = cost.periods !== null ? `${formatNumber(Math.round(cost.periods))} periods` : `${formatNumber(Math.round(cost.flowThroughs!))} flow-throughs`
+  return `${formatNumber(cost.timeSteps)} steps over ${span}`
 }
 
-function timeSentence(id: ApproachId, cost: ApproachCost): string {
-  if (cost.timeStep === null || cost.simulatedTime === null) {
-    return `Steady solution: ${formatEstimate(cost.timeSteps, cost.ranges.timeSteps, cost.uncertainty.timeSteps)} iterations.`
-  }
-  const span = cost.periods !== null ? `${formatNumber(Math.round(cost.periods))} periods` : `${formatNumber(Math.round(cost.flowThroughs ?? 0))} flow-throughs`
-  const acoustic = cost.acousticFactor > 1 ? `, including the acoustic factor 1 + 1/M = ${formatNumber(cost.acousticFactor)}` : ''
-  const inner = cost.innerIterations > 1 ? ` with ${cost.innerIterations} inner iterations each` : ''
-  const start = id === 'urans' ? ', started from a converged steady solution' : ''
-  return (
-    `Time step ${formatSeconds(cost.timeStep)} (CFL ${formatNumber(cost.cfl ?? 0)} on the finest cell of ${formatNumber(cost.finestCell)} m${acoustic}); ` +
-    `${formatSeconds(cost.simulatedTime)} simulated, ${span}: ${formatEstimate(cost.timeSteps, cost.ranges.timeSteps, cost.uncertainty.timeSteps)} steps${inner}${start}.`
-  )
-}
-
-export function costReasons(id: ApproachId, cost: ApproachCost, input: CaseInput, treatment: WallTreatment, text: BudgetText): string[] {
+export function costReasons(cost: ApproachCost, input: CaseInput, treatment: WallTreatment, text: BudgetText): string[] {
   const reasons: string[] = []
   if (cost.layers !== null) {
-    reasons.push(`Mesh counted with ${WALL_TREATMENT_LABELS[treatment].toLowerCase()} at y+ ${formatNumber(cost.yPlusTarget)}: ${cost.layers} layers to the boundary-layer edge${cost.twoDimensional ? ', in two dimensions' : ''}.`)
+    reasons.push(`Mesh counted with ${LOWER_LABELS[treatment]} at y+ ${formatNumber(cost.yPlusTarget)}: ${cost.layers} layers to the boundary-layer edge${cost.twoDimensional ? ', in two dimensions' : ''}.`)
   }
   reasons.push(
-    `Cells ${formatEstimate(cost.cells, cost.ranges.cells, cost.uncertainty.cells)}; core-hours ${formatEstimate(cost.coreHours, cost.ranges.coreHours, cost.uncertainty.coreHours)}; ` +
-      `wall-clock ${formatEstimate(cost.wallClockHours, cost.ranges.wallClockHours, cost.uncertainty.coreHours)} h on ${text.cores} cores; memory ${formatEstimate(cost.memoryGB, cost.ranges.memoryGB, cost.uncertainty.memoryGB)} GB.`,
-    timeSentence(id, cost),
+    `About ${formatNumber(roundToBand(cost.cells, cost.uncertainty.cells))} cells and ${timeWords(cost)}: core-hours ${formatEstimate(cost.coreHours, cost.ranges.coreHours, cost.uncertainty.coreHours)}.`,
   )
   if (cost.feasible) {
-    reasons.push(`Fits the budget of ${text.coreHours} core-hours and ${text.wallClockHours} h wall-clock.`)
+    reasons.push(`Fits the budget of ${text.coreHours} core-hours and ${text.wallClockHours} h wall-clock on ${text.cores} cores.`)
   } else {
     if (cost.coreHours > input.budget.coreHours) {
       reasons.push(`Needs ${formatNumber(cost.coreHours)} core-hours against a budget of ${text.coreHours}.`)
@@ -61,7 +48,7 @@ export function costReasons(id: ApproachId, cost: ApproachCost, input: CaseInput
       reasons.push(`Needs ${formatNumber(cost.wallClockHours)} h wall-clock on ${text.cores} cores against a budget of ${text.wallClockHours} h.`)
     }
   }
-  if (cost.cells / input.budget.cores < MIN_CELLS_PER_CORE) {
+  if (cost.cells < MIN_CELLS_PER_CORE * input.budget.cores) {
     reasons.push(
       `Only ${formatNumber(cost.cells / input.budget.cores)} cells per core: below about ${formatNumber(MIN_CELLS_PER_CORE)} parallel efficiency usually drops, so the wall-clock figure is optimistic.`,
     )

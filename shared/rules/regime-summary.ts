@@ -45,7 +45,7 @@ export function regimeAdvice(physics: FlowPhysics): RegimeAdvice {
     basis: regime.basis,
     mach: regime.mach,
     strouhal: regime.strouhal,
-    thresholds: { ...regime.thresholds },
+    thresholds: { laminarBelow: regime.thresholds.laminarBelow, turbulentAbove: regime.thresholds.turbulentAbove },
     application: application.application,
     applicationGiven: application.given,
     swirl: application.swirl,

@@ -114,12 +114,13 @@ export function sheddingStrouhal(reynolds: number, geometry: RegimeInput['geomet
   return reynolds < TRANSCRITICAL_REYNOLDS ? STROUHAL.critical : STROUHAL.transcritical
 }
 
-function bluffRegime(reynolds: number, input: RegimeInput): Omit<FlowRegime, 'mach'> {
+function bluffRegime(reynolds: number, input: RegimeInput, mach: MachRegime): FlowRegime {
   return {
     state: stateBetween(reynolds, WAKE_THREE_DIMENSIONAL_REYNOLDS, WAKE_TURBULENT_REYNOLDS),
     boundaryLayer: stateBetween(reynolds, DRAG_CRISIS_REYNOLDS, PLATE_TRANSITION_REYNOLDS),
     wake: wakeState(reynolds),
     basis: 'bluff-wake',
+    mach,
     strouhal: sheddingStrouhal(reynolds, input.geometry),
     thresholds: { laminarBelow: WAKE_THREE_DIMENSIONAL_REYNOLDS, turbulentAbove: WAKE_TURBULENT_REYNOLDS },
   }
@@ -131,7 +132,7 @@ function bluffRegime(reynolds: number, input: RegimeInput): Omit<FlowRegime, 'ma
  */
 export function classifyRegime(input: RegimeInput, reynolds: number, mach: number | null): FlowRegime {
   const compressibility = machRegime(mach)
-  if (judgedOnWake(input)) return { ...bluffRegime(reynolds, input), mach: compressibility }
+  if (judgedOnWake(input)) return bluffRegime(reynolds, input, compressibility)
   const internal = input.regime === 'internal'
   const laminarBelow = internal ? PIPE_LAMINAR_REYNOLDS : PLATE_LAMINAR_REYNOLDS
   const turbulentAbove = internal ? PIPE_TURBULENT_REYNOLDS : PLATE_TRANSITION_REYNOLDS

@@ -71,7 +71,12 @@ function governingPeriod(flow: CostCase): number | null {
 }
 
 function wantsUnsteady(flow: CostCase): boolean {
-  return flow.quantities.some((q) => q === 'unsteady-loads' || q === 'noise')
+  return flow.quantities.includes('unsteady-loads') || flow.quantities.includes('noise')
+}
+
+/** A duration in flow-throughs, or in shedding periods when the body sheds, s. */
+function span(need: { flowThroughs: number; periods: number }, flowThrough: number, shedding: number | null): number {
+  return shedding === null ? need.flowThroughs * flowThrough : need.periods * shedding
 }
 
 /** Simulated time of a scale-resolving or hybrid run, s. */
@@ -79,12 +84,11 @@ export function resolvingTime(flow: CostCase): number {
   const flowThrough = flow.domain.length / flow.velocity
   const period = governingPeriod(flow)
   const shedding = flow.strouhal === null ? null : flow.length / (flow.strouhal * flow.velocity)
-  const transient = shedding === null ? TRANSIENT.flowThroughs * flowThrough : TRANSIENT.periods * shedding
-  const unit = (need: { flowThroughs: number; periods: number }) => (shedding === null ? need.flowThroughs * flowThrough : need.periods * shedding)
-  let averaging = unit(AVERAGING.mean)
-  if (flow.quantities.includes('statistics')) averaging = Math.max(averaging, unit(AVERAGING.statistics))
+  const transient = span(TRANSIENT, flowThrough, shedding)
+  let averaging = span(AVERAGING.mean, flowThrough, shedding)
+  if (flow.quantities.includes('statistics')) averaging = Math.max(averaging, span(AVERAGING.statistics, flowThrough, shedding))
   if (wantsUnsteady(flow)) {
-    averaging = Math.max(averaging, flow.lowestFrequencyHz !== null && period !== null ? LOWEST_FREQUENCY_PERIODS * period : unit(AVERAGING.unsteady))
+    averaging = Math.max(averaging, flow.lowestFrequencyHz !== null && period !== null ? LOWEST_FREQUENCY_PERIODS * period : span(AVERAGING.unsteady, flowThrough, shedding))
   }
   return transient + averaging
 }

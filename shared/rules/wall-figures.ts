@@ -4,7 +4,7 @@
  */
 import type { ApproachId, WallTreatment } from './approaches'
 import type { WallFigures } from './advice-types'
-import { caseInputSchema, type CaseInput, type CaseInputDraft } from './case-input'
+import { parseCaseInput, type CaseInput, type CaseInputDraft } from './case-input'
 import { flowPhysics, type FlowPhysics } from './flow-physics'
 import { laminarYPlusTarget, layersToThickness, wallModelExchangeYPlus, yPlusTargetFor } from './near-wall'
 
@@ -57,6 +57,6 @@ export function wallFor(
   yPlusTarget?: number,
   approach?: ApproachId,
 ): WallFigures {
-  const parsed = caseInputSchema.parse(input)
+  const parsed = parseCaseInput(input)
   return wallFigures(flowPhysics(parsed), wallTreatment, parsed.growthRatio, yPlusTarget, approach)
 }

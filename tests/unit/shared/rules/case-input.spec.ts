@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { caseInputSchema, type CaseInputDraft } from '../../../../shared/rules/case-input'
+import { ZodError } from 'zod'
+import { caseInputSchema, parseCaseInput, type CaseInputDraft } from '../../../../shared/rules/case-input'
 
 const valid: CaseInputDraft = {
   regime: 'internal',
@@ -141,5 +142,37 @@ describe('caseInputSchema', () => {
 
   it('rejects unknown choices with the list of allowed ones', () => {
     expect(issues(withChange((draft) => (draft.separation = 'some')))).toContain('separation: Separation must be one of: none, mild, massive.')
+  })
+})
+
+describe('parseCaseInput, the engine\'s fast parse', () => {
+  it('gives the same result as caseInputSchema for valid cases and the same issues for invalid ones (property)', () => {
+    const samples: unknown[] = [
+      valid,
+      {},
+      { ...valid, velocity: -1 },
+      { ...valid, fluid: { medium: 'custom' } },
+      { ...valid, fluid: { medium: 'water', temperatureK: 400 } },
+      { ...valid, roughness: 0.01 },
+      { ...valid, regime: 'external', domain: { crossSection: 'pipe' } },
+      { ...valid, regime: 'external', length: 10, roughnessLength: 0.1, roughness: 0.01 },
+    ]
+    for (const sample of samples) {
+      const reference = caseInputSchema.safeParse(sample)
+      let fast: unknown
+      let error: unknown
+      try {
+        fast = parseCaseInput(sample)
+      } catch (caught) {
+        error = caught
+      }
+      if (reference.success) expect(fast).toEqual(reference.data)
+      else {
+        expect(error).toBeInstanceOf(ZodError)
+        expect((error as ZodError).issues.map((found) => `${found.path.join('.')}: ${found.message}`)).toEqual(
+          reference.error.issues.map((found) => `${found.path.join('.')}: ${found.message}`),
+        )
+      }
+    }
   })
 })
