@@ -120,8 +120,8 @@ function optional(value: number | undefined): number | undefined {
 
 /**
  * The form's values as the engine's input, in SI. Only the properties the chosen fluid uses are
- * sent (air: temperature and pressure; water: temperature; custom: density and viscosity), and
- * roughness only for internal flow.
+ * sent (air: temperature and pressure; water: temperature; custom: density and viscosity);
+ * roughness for any wall.
  */
 export function toCaseInputDraft(values: CaseFormValues): CaseInputDraft {
   // Missing groups become empty ones, so the engine names each missing field.
@@ -147,7 +147,7 @@ export function toCaseInputDraft(values: CaseFormValues): CaseInputDraft {
       wallClockHours: optional(budget.wallClockHours),
     },
   }
-  if (values.regime === 'internal') draft.roughness = si('roughness', values.roughness)
+  draft.roughness = si('roughness', values.roughness)
   const intensity = optional(values.turbulenceIntensityPercent)
   if (intensity !== undefined) draft.turbulenceIntensity = intensity / 100
   if (optional(values.yPlusTarget) !== undefined) draft.yPlusTarget = values.yPlusTarget

@@ -55,7 +55,7 @@ export const CASE_HELP = {
   lengthInternal: 'Hydraulic diameter of the duct or pipe. The Reynolds number and the friction factor are based on it.',
   roughness: 'Equivalent sand-grain roughness of the wall, for internal flow. Leave empty for a smooth wall.',
   turbulenceIntensity:
-    'Turbulence intensity of the incoming flow, in percent of the velocity. Sets the large-eddy Reynolds number Re_L and the Kolmogorov estimates.',
+    'Turbulence intensity of the incoming flow, in percent of the velocity. Sets the large-eddy Reynolds number and the Kolmogorov estimates.',
   physics: 'Physics that change which approach is trusted. Each one ticked can fire rules in the reasoning.',
   quantities: 'What the simulation must deliver. Mean forces suit RANS; unsteady loads, noise and statistics need time-resolved methods.',
   coreHours: 'Total compute you can spend on this case, in core-hours (cores × hours).',
