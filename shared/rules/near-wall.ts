@@ -35,7 +35,7 @@ export const RESOLVING_FIRST_CELL_Y_PLUS = 0.5
  */
 export const BLENDED_Y_PLUS = 5
 export const BLENDED_Y_PLUS_BAND = { min: 0.1, max: 300 } as const
-/** Standard wall functions (Launder & Spalding 1974) want the first cell centre in the log layer, commonly 30 <= y+ <= 300 (common practice, no source). */
+/** Log-law wall functions (Launder & Spalding 1974) want the first cell centre in the log layer, commonly 30 <= y+ <= 300 (common practice, no source). */
 export const WALL_FUNCTION_Y_PLUS_BAND = { min: 30, max: 300 } as const
 /**
  * Our pick inside the wall-function band: the geometric middle of the log layer, which spans
