@@ -1,5 +1,5 @@
 import { and, asc, eq, isNull } from 'drizzle-orm'
-import { bandFor, gridConvergence, type GridStudyResult } from '#shared/verification'
+import { bandFor, gridConvergence, type GridStudyRecord, type GridStudyResult, type RunRecordView } from '#shared/verification'
 import type { GridStudyBody, RunRecordBody } from '#shared/schemas/verification'
 import type { SessionUser } from '../auth'
 
@@ -31,7 +31,7 @@ export async function createGridStudy(decisionId: number, body: GridStudyBody, u
   return toGridStudyDto(row)
 }
 
-export function toGridStudyDto(row: typeof tables.gridStudies.$inferSelect) {
+export function toGridStudyDto(row: typeof tables.gridStudies.$inferSelect): GridStudyRecord {
   const r = row.result as GridStudyResult
   return {
     id: row.id,
@@ -68,7 +68,7 @@ export async function createRunRecord(decisionId: number, body: RunRecordBody, u
   return toRunDto(row, choice.approach)
 }
 
-export function toRunDto(row: typeof tables.runRecords.$inferSelect, signedOffApproach?: string) {
+export function toRunDto(row: typeof tables.runRecords.$inferSelect, signedOffApproach?: string): RunRecordView {
   const cautions: string[] = []
   if (signedOffApproach && row.approach !== signedOffApproach) {
     cautions.push('This run used another approach than the one signed off; it is compared with the engine\'s estimate for the approach it used.')

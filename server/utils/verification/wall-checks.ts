@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { and, desc, eq, isNull } from 'drizzle-orm'
-import { bandFor, DEFAULT_PASS_FRACTION, verdictFor, type WallCheckResult } from '#shared/verification'
+import { bandFor, DEFAULT_PASS_FRACTION, verdictFor, type WallCheckRecord, type WallCheckResult } from '#shared/verification'
 import type { WallCheckReviewBody } from '#shared/schemas/verification'
 import type { SessionUser } from '../auth'
 import type { DbOrTx } from '../decision-events'
@@ -106,7 +106,7 @@ export async function createWallCheck(decisionId: number, file: ReceivedFile, re
 
 export type WallCheckRow = typeof tables.wallChecks.$inferSelect
 
-export function toWallCheckDto(row: WallCheckRow) {
+export function toWallCheckDto(row: WallCheckRow): WallCheckRecord {
   const r = row.result as WallCheckResult
   return {
     id: row.id,
@@ -139,7 +139,6 @@ export function toWallCheckDto(row: WallCheckRow) {
     createdAt: row.createdAt,
   }
 }
-export type WallCheckDto = ReturnType<typeof toWallCheckDto>
 
 export async function findWallCheck(decisionId: number, checkId: number, db: DbOrTx = useDb()) {
   const row = await db.query.wallChecks.findFirst({
