@@ -71,5 +71,3 @@ export interface RunRecordView {
   retraction: Retraction | null
 }
 
-/** The names the decision page shows beside the ids. */
-export type Named<T> = T & { [K in 'uploadedByName' | 'reviewerName' | 'retractedByName' | 'createdByName']?: string | null }

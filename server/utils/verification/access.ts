@@ -1,6 +1,8 @@
 import type { H3Event } from 'h3'
 import { MEMBER_ROLES } from '#shared/utils/roles'
-import type { SessionUser } from '../auth'
+import type { SessionUser } from '#shared/types/session'
+import { requireDecisionAccess } from '../auth/guards'
+import { decisionReadRefusal } from '../decisions/policy'
 
 // Who may do what with a decision's verification records. The author and the project's engineers
 // record and retract; the project's reviewers accept or reject wall checks (never their own);

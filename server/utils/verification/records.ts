@@ -1,7 +1,11 @@
 import { and, asc, eq, isNull } from 'drizzle-orm'
 import { bandFor, gridConvergence, type GridStudyRecord, type GridStudyResult, type RunRecordView } from '#shared/verification'
 import type { GridStudyBody, RunRecordBody } from '#shared/schemas/verification'
-import type { SessionUser } from '../auth'
+import type { SessionUser } from '#shared/types/session'
+import { tables, useDb } from '../db'
+import { appendEvent } from '../decisions/events'
+import { signedOffChoice } from './signed-off'
+import { currentPassFraction, toWallCheckDto } from './wall-checks'
 
 // Grid-convergence studies and run records of a decision, their retraction, and the whole
 // verification section as the decision page reads it.
@@ -37,7 +41,6 @@ export function toGridStudyDto(row: typeof tables.gridStudies.$inferSelect): Gri
     id: row.id,
     quantity: row.quantity,
     unit: row.unit,
-    dimensions: row.dimensions,
     ...r,
     createdBy: row.createdBy,
     createdAt: row.createdAt,

@@ -1,6 +1,7 @@
 import { and, desc, eq, inArray } from 'drizzle-orm'
 import type { ApproachId, WallTreatment } from '#shared/rules'
-import type { DbOrTx } from '../decision-events'
+import { tables, useDb, type DbOrTx } from '../db'
+import { readDecision } from '../decisions/queries'
 
 /**
  * What was signed off: the reviewer's choice when overridden, else the engine's recommendation;

@@ -4,7 +4,9 @@ import {
   type AdoptedCalibration, type CalibrationBlock, type RunFigures,
 } from '#shared/verification'
 import type { ApproachId } from '#shared/rules'
-import type { SessionUser } from '../auth'
+import type { SessionUser } from '#shared/types/session'
+import { tables, useDb } from '../db'
+import { currentPassFraction } from './wall-checks'
 
 // The team's cost calibration: measured from every run record that stands (retracted ones are
 // left out), adopted by a lead as a new version, applied to advice beside the engine's estimate.

@@ -2,9 +2,13 @@ import { randomUUID } from 'node:crypto'
 import { and, desc, eq, isNull } from 'drizzle-orm'
 import { bandFor, DEFAULT_PASS_FRACTION, verdictFor, type WallCheckRecord, type WallCheckResult } from '#shared/verification'
 import type { WallCheckReviewBody } from '#shared/schemas/verification'
-import type { SessionUser } from '../auth'
-import type { DbOrTx } from '../decision-events'
+import type { SessionUser } from '#shared/types/session'
+import { tables, useDb, type DbOrTx } from '../db'
+import { appendEvent } from '../decisions/events'
+import { MAIL_CAUTIONS, enqueueMail, kickMailDelivery } from '../mail/outbox'
 import type { ReceivedFile } from '../storage/multipart-upload'
+import { putObjectFromFile } from '../storage/object-store'
+import { signedOffChoice, signingReviewer } from './signed-off'
 import { checkWallFileType, parseWallFile, sniffWallFile, type WallMappingRequest } from './wall-file'
 
 /** The team's pass fraction for wall checks: the latest setting, or the default. */
@@ -14,7 +18,7 @@ export async function currentPassFraction(db: DbOrTx = useDb()) {
 }
 
 function safeName(name: string) {
-  return name.replace(/[^\w.\-]+/g, '_').slice(-120) || 'upload'
+  return name.replace(/[^\w.-]+/g, '_').slice(-120) || 'upload'
 }
 
 function link(decisionId: number) {

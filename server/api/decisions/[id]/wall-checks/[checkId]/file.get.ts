@@ -8,10 +8,10 @@ export default defineEventHandler(async (event) => {
   const { body, size } = await getObjectStream(check.storageKey)
   setResponseHeaders(event, {
     'content-type': check.compressed ? 'application/gzip' : 'text/csv; charset=utf-8',
-    'content-disposition': `attachment; filename="${check.fileName.replace(/[^\w.\-]+/g, '_')}"`,
+    'content-disposition': `attachment; filename="${check.fileName.replace(/[^\w.-]+/g, '_')}"`,
     'cache-control': 'private, no-store',
     'x-content-sha256': check.sha256,
-    ...(size !== undefined ? { 'content-length': String(size) } : {}),
+    ...(size !== undefined ? { 'content-length': size } : {}),
   })
   return sendStream(event, body)
 })
