@@ -1,6 +1,10 @@
 // After the run, through the real server, PostgreSQL and the local object store: wall y+ checks
 // (uploads, statistics, review, retraction), grid studies, run records and the calibration.
+import { execFileSync } from 'node:child_process'
 import { createHash } from 'node:crypto'
+import { mkdtempSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import { gzipSync } from 'node:zlib'
 import { ListObjectsV2Command, GetObjectCommand, S3Client } from '@aws-sdk/client-s3'
 import pg from 'pg'
@@ -329,5 +333,36 @@ describe('run records and calibration', () => {
     expect((await c.reviewer2.get(`/api/decisions/${decisionId}/verification`)).status).toBe(403)
     const decision = await c.engineer.get(`/api/decisions/${decisionId}`)
     expect(decision.body.calibration.approach).toBe('rans')
+  })
+})
+
+describe('the record and the export', () => {
+  it('prints the verification in the PDF record', async () => {
+    const res = await fetch(`${c.auditor.baseUrl}/api/decisions/${decisionId}/report.pdf`, { headers: { cookie: c.auditor.cookie, 'x-forwarded-for': c.auditor.address } })
+    expect(res.status).toBe(200)
+    const dir = mkdtempSync(join(tmpdir(), 'eddyledger-verification-'))
+    const file = join(dir, 'record.pdf')
+    writeFileSync(file, Buffer.from(await res.arrayBuffer()))
+    const text = execFileSync('/usr/bin/pdftotext', ['-layout', file, '-'], { encoding: 'utf8' }).replace(/\s+/g, '')
+    expect(text).toContain('Aftertherun:verification')
+    expect(text).toContain('duct-wall.csv.gz')
+    // The Celik et al. 2008 study as recorded above: GCI_fine 2.2 %, order 1.53.
+    expect(text).toContain('2.17%')
+    expect(text).toContain('1.53')
+    expect(text).toContain('retracted')
+  })
+
+  it('adds the verification columns to the audit CSV', async () => {
+    const csv = (await c.auditor.get('/api/audit/decisions.csv')).body as string
+    const lines = csv.trim().split(/\r\n/).map(l => l.split(','))
+    const header = lines[0]!
+    const row = lines.find(l => Number(l[0]) === decisionId)!
+    const col = (name: string) => row[header.indexOf(name)]
+    expect(Number(col('wall checks'))).toBeGreaterThanOrEqual(5)
+    expect(col('latest wall check verdict')).toMatch(/^(pass|fail)$/)
+    expect(Number(col('grid studies'))).toBe(1)
+    expect(Number(col('latest fine-grid GCI'))).toBeCloseTo(0.0217, 4)
+    expect(Number(col('CPU runs'))).toBe(3)
+    expect(Number(col('retracted records'))).toBe(2)
   })
 })

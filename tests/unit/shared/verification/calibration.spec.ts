@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { calibrate, calibratedEstimates, costPerCellStep, type RunFigures } from '../../../../shared/verification/calibration'
+import { calibrate, calibratedEstimates, costPerCellStep, type RunFigures } from '#shared/verification/calibration'
 
 // Cost per cell-step = core-hours x 3600 / (cells x steps): the definition the engine's own cost
 // model uses (shared/rules/cost-model.ts); checks below are arithmetic on runs built with a known

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { apparentOrder, gridConvergence, representativeSize } from '../../../../shared/verification/grid-convergence'
+import { apparentOrder, gridConvergence, representativeSize } from '#shared/verification/grid-convergence'
 
 // The worked example of Celik et al. 2008, ASME J. Fluids Eng. 130, 078001 (Table 1, first
 // column): a 2-D study on N = 18000, 8000 and 4500 cells with phi = 6.063, 5.972, 5.863 gives

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { yPlusTargetFor } from '../../../../shared/rules/near-wall'
-import { WallTally, bandFor, guessColumns, looksLikeData, parseArea, parseYPlus, verdictFor } from '../../../../shared/verification/wall-yplus'
+import { yPlusTargetFor } from '#shared/rules/near-wall'
+import { WallTally, bandFor, guessColumns, looksLikeData, parseArea, parseYPlus, verdictFor } from '#shared/verification/wall-yplus'
 
 describe('the band of a signed-off wall treatment', () => {
   it('is 30 to 300 for log-law wall functions at their own target', () => {
