@@ -36,6 +36,10 @@ export default defineNuxtConfig({
     session: { maxAge: 60 * 60 * 12 },
     // Failed sign-ins allowed per window before a lock of the same length.
     loginLimit: { accountFailures: 5, clientFailures: 30, windowMinutes: 15, trustProxy: false },
+    // S3-compatible object storage for uploads (NUXT_STORAGE_*). npm start and npm test point it
+    // at a local fake (s3rver); production names a real bucket and, unless the platform provides
+    // credentials, its keys.
+    storage: { endpoint: '', region: 'us-east-1', bucket: 'eddyledger-uploads', accessKeyId: '', secretAccessKey: '', forcePathStyle: false },
   },
   typescript: { strict: true },
 })

@@ -2,6 +2,7 @@
 # npm run dev: the same database and mail catcher as npm start, with Nuxt's dev server.
 source "$(dirname "$0")/lib/common.sh"
 PG_PORT="${PG_PORT:-54329}"
+S3_PORT="${S3_PORT:-4569}"
 ensure_apt_packages postgresql
 ensure_node_modules
 ensure_session_password
@@ -15,5 +16,8 @@ export NUXT_DATABASE_URL="$DATABASE_URL" DEMO_PASSWORD="${DEMO_PASSWORD:-$DEMO_P
 npx tsx scripts/migrate.ts
 npx tsx scripts/seed.ts
 node_modules/.bin/maildev --ip 127.0.0.1 --smtp 1025 --web-ip 127.0.0.1 --web 1080 --silent >/tmp/eddyledger-maildev.log 2>&1 &
-trap 'kill $! 2>/dev/null || true' EXIT
+MAILDEV_PID=$!
+FAKE_S3_PID=
+[ -z "${NUXT_STORAGE_BUCKET:-}" ] && start_fake_s3 "$ROOT/.s3" "$S3_PORT"
+trap 'kill $MAILDEV_PID ${FAKE_S3_PID:-} 2>/dev/null || true' EXIT
 npx nuxt dev --host 127.0.0.1

@@ -5,6 +5,7 @@ source "$(dirname "$0")/lib/common.sh"
 
 PORT="${PORT:-3000}"
 PG_PORT="${PG_PORT:-54329}"
+S3_PORT="${S3_PORT:-4569}"
 ensure_apt_packages postgresql
 ensure_node_modules
 ensure_session_password
@@ -34,9 +35,16 @@ if [ -z "${NUXT_SMTP_HOST:-}" ]; then
   MAIL_NOTE="development inbox: http://127.0.0.1:1080"
 fi
 
+# Uploads: a real bucket when NUXT_STORAGE_BUCKET is set, else the local fake object store.
+if [ -z "${NUXT_STORAGE_BUCKET:-}" ]; then
+  start_fake_s3 "$ROOT/.s3" "$S3_PORT"
+  pids+=("$FAKE_S3_PID")
+  S3_NOTE="object store: http://127.0.0.1:$S3_PORT (local fake)"
+fi
+
 ensure_build
 export NUXT_APP_URL="${NUXT_APP_URL:-http://127.0.0.1:$PORT}"
-log "Eddyledger at http://127.0.0.1:$PORT  ${MAIL_NOTE:-}"
+log "Eddyledger at http://127.0.0.1:$PORT  ${MAIL_NOTE:-}  ${S3_NOTE:-}"
 log "demo sign-ins (password: $DEMO_PASSWORD): engineer@ engineer2@ reviewer@ reviewer2@ auditor@ lead@ admin@ eddyledger.test"
 HOST=127.0.0.1 PORT="$PORT" node "$EDDY_OUTPUT_DIR/server/index.mjs" &
 pids+=($!)

@@ -17,6 +17,7 @@ pids=()
 cleanup() {
   for p in "${pids[@]}"; do kill "$p" 2>/dev/null || true; done
   stop_cluster "$PG_DIR"; rm -rf "$PG_DIR"
+  if [ -n "${S3_DIR:-}" ]; then rm -rf "$S3_DIR" "$S3_DIR.log"; fi
 }
 trap cleanup EXIT INT TERM
 start_cluster "$PG_DIR" "$PG_PORT" -c fsync=off -c synchronous_commit=off -c full_page_writes=off
@@ -31,6 +32,13 @@ SMTP_PORT="$(free_port)"; MAIL_WEB_PORT="$(free_port)"
 node_modules/.bin/maildev --ip 127.0.0.1 --smtp "$SMTP_PORT" --web-ip 127.0.0.1 --web "$MAIL_WEB_PORT" --silent >/tmp/eddyledger-test-maildev.log 2>&1 &
 pids+=($!)
 export TEST_SMTP_PORT="$SMTP_PORT" TEST_MAILDEV_URL="http://127.0.0.1:$MAIL_WEB_PORT"
+
+# A throwaway local object store on its own port (S3_PORT when set), removed after.
+S3_DIR="$ROOT/.s3-test$SLOT_SUFFIX"
+rm -rf "$S3_DIR"
+start_fake_s3 "$S3_DIR" "${S3_PORT:-$(free_port)}"
+pids+=("$FAKE_S3_PID")
+export TEST_S3_URL="$NUXT_STORAGE_ENDPOINT"
 
 ensure_build
 

@@ -9,3 +9,7 @@ export type AuditRow = ApiResponse<'/api/audit/decisions'>['decisions'][number]
 export type ChainCheck = ApiResponse<'/api/decisions/:id/verify'>
 export type TimelineEvent = ApiResponse<'/api/decisions/:id/events'>['events'][number]
 export type OverviewProjectRow = ApiResponse<'/api/overview'>['compute']['projects'][number]
+export type VerificationView = ApiResponse<'/api/decisions/:id/verification'>
+export type WallCheckView = VerificationView['wallChecks'][number]
+export type GridStudyView = VerificationView['gridStudies'][number]
+export type RunView = VerificationView['runs'][number]

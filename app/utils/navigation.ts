@@ -7,7 +7,10 @@ const NAV: Record<Role, NavItem[]> = {
   engineer: [{ to: '/projects', label: 'Projects' }],
   reviewer: [{ to: '/projects', label: 'Projects' }, { to: '/review', label: 'Review queue' }],
   auditor: [{ to: '/projects', label: 'Projects' }, { to: '/audit', label: 'Audit' }, { to: '/overview', label: 'Overview' }],
-  lead: [{ to: '/projects', label: 'Projects' }, { to: '/overview', label: 'Overview' }, { to: '/audit', label: 'Audit' }],
+  lead: [
+    { to: '/projects', label: 'Projects' }, { to: '/overview', label: 'Overview' }, { to: '/calibration', label: 'Calibration' },
+    { to: '/audit', label: 'Audit' },
+  ],
   admin: [
     { to: '/projects', label: 'Projects' },
     { to: '/admin/users', label: 'Users' },

@@ -88,6 +88,25 @@ ensure_database() {
   fi
 }
 
+# start_fake_s3 DIR PORT: the local object store (s3rver) on 127.0.0.1 with the uploads bucket, and
+# the app pointed at it (NUXT_STORAGE_*); its pid in FAKE_S3_PID. The data stays in DIR.
+FAKE_S3_BUCKET=eddyledger-uploads
+start_fake_s3() {
+  local dir="$1" port="$2"
+  mkdir -p "$dir"
+  node_modules/.bin/s3rver --directory "$dir" --address 127.0.0.1 --port "$port" --silent \
+    --configure-bucket "$FAKE_S3_BUCKET" >"$dir.log" 2>&1 &
+  local pid=$!
+  for _ in $(seq 1 100); do
+    if node -e "require('net').connect($port,'127.0.0.1').on('connect',()=>process.exit(0)).on('error',()=>process.exit(1))" 2>/dev/null; then break; fi
+    kill -0 "$pid" 2>/dev/null || { cat "$dir.log" >&2; echo "the local object store did not start" >&2; return 1; }
+    sleep 0.1
+  done
+  export NUXT_STORAGE_ENDPOINT="http://127.0.0.1:$port" NUXT_STORAGE_BUCKET="$FAKE_S3_BUCKET" NUXT_STORAGE_FORCE_PATH_STYLE=true \
+    NUXT_STORAGE_ACCESS_KEY_ID=S3RVER NUXT_STORAGE_SECRET_ACCESS_KEY=S3RVER NUXT_STORAGE_REGION=us-east-1
+  FAKE_S3_PID=$pid
+}
+
 free_port() { node -e "const s=require('net').createServer();s.listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"; }
 
 # EDDY_BUILD_SLOT=x keeps a parallel build and test cluster apart: .output-x, .nuxt-x, .pg-test-x.

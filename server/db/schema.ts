@@ -2,15 +2,22 @@
 // so scripts under plain Node (tsx) can load it too.
 import { sql } from 'drizzle-orm'
 import {
-  bigserial, boolean, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
+  bigserial, boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core'
 import type { Advice, CaseInput } from '../../shared/rules'
 import type { DecisionEventPayload, DecisionOverride } from '../../shared/types/decisions'
 import { DECISION_STATUSES } from '../../shared/utils/decision-status'
 import { ROLES } from '../../shared/utils/roles'
+import { APPROACH_IDS } from '../../shared/rules/approaches'
+import type { AdoptedEntry } from '../../shared/verification/calibration'
+import type { GridLevel, GridStudyResult } from '../../shared/verification/grid-convergence'
+import type { WallCheckColumns, WallCheckResult } from '../../shared/verification/wall-check'
+import type { YPlusBand } from '../../shared/verification/wall-yplus'
 
 export const EVENT_TYPES = [
   'created', 'revised', 'submitted', 'approved', 'overridden', 'changes_requested', 'commented', 'superseded',
+  // After the run: verification records added to a signed-off decision.
+  'wall_check_uploaded', 'wall_check_reviewed', 'grid_study_recorded', 'run_recorded', 'verification_retracted',
 ] as const
 
 export const roleEnum = pgEnum('role', ROLES)
@@ -128,5 +135,92 @@ export const userTokens = pgTable('user_tokens', {
   tokenHash: text('token_hash').notNull().unique(),
   expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
   usedAt: timestamp('used_at', { withTimezone: true }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+})
+
+// ---- after the run: verification records of a signed-off decision. Rows are never deleted; the
+// review and retraction columns are set once (trigger in a custom migration), and each change is
+// also an event in the decision's chained history.
+
+const retraction = {
+  retractedAt: timestamp('retracted_at', { withTimezone: true }),
+  retractedBy: integer('retracted_by').references(() => users.id),
+  retractionReason: text('retraction_reason'),
+}
+
+// A solver's wall export, kept in object storage; its statistics against the signed-off y+ band.
+export const wallChecks = pgTable('wall_checks', {
+  id: serial('id').primaryKey(),
+  decisionId: integer('decision_id').notNull().references(() => decisions.id),
+  uploadedBy: integer('uploaded_by').notNull().references(() => users.id),
+  fileName: text('file_name').notNull(),
+  contentType: text('content_type').notNull(),
+  compressed: boolean('compressed').notNull(),
+  storageKey: text('storage_key').notNull(),
+  sizeBytes: integer('size_bytes').notNull(),
+  sha256: text('sha256').notNull(),
+  columns: jsonb('columns').$type<WallCheckColumns>().notNull(),
+  band: jsonb('band').$type<YPlusBand>().notNull(),
+  result: jsonb('result').$type<WallCheckResult>().notNull(),
+  passFraction: doublePrecision('pass_fraction').notNull(),
+  verdict: text('verdict', { enum: ['pass', 'fail'] }).notNull(),
+  reviewAccepted: boolean('review_accepted'),
+  reviewedBy: integer('reviewed_by').references(() => users.id),
+  reviewedAt: timestamp('reviewed_at', { withTimezone: true }),
+  reviewComment: text('review_comment'),
+  ...retraction,
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [index('wall_checks_decision_idx').on(t.decisionId)])
+
+export const gridStudies = pgTable('grid_studies', {
+  id: serial('id').primaryKey(),
+  decisionId: integer('decision_id').notNull().references(() => decisions.id),
+  createdBy: integer('created_by').notNull().references(() => users.id),
+  quantity: text('quantity').notNull(),
+  unit: text('unit').notNull().default(''),
+  dimensions: integer('dimensions').notNull(),
+  grids: jsonb('grids').$type<GridLevel[]>().notNull(),
+  result: jsonb('result').$type<GridStudyResult>().notNull(),
+  ...retraction,
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [index('grid_studies_decision_idx').on(t.decisionId)])
+
+// What a run really took, with the engine's estimate for the same approach beside it.
+export const runRecords = pgTable('run_records', {
+  id: serial('id').primaryKey(),
+  decisionId: integer('decision_id').notNull().references(() => decisions.id),
+  createdBy: integer('created_by').notNull().references(() => users.id),
+  approach: text('approach', { enum: APPROACH_IDS }).notNull(),
+  cells: doublePrecision('cells').notNull(),
+  // Physical time steps (iterations for steady RANS); inner iterations per step for information.
+  timeSteps: doublePrecision('time_steps').notNull(),
+  innerIterations: integer('inner_iterations'),
+  coreHours: doublePrecision('core_hours').notNull(),
+  wallClockHours: doublePrecision('wall_clock_hours').notNull(),
+  cores: integer('cores').notNull(),
+  hardware: text('hardware', { enum: ['cpu', 'gpu'] }).notNull(),
+  hardwareNote: text('hardware_note').notNull().default(''),
+  solverFamily: text('solver_family').notNull().default(''),
+  estimated: jsonb('estimated').$type<{ cells: number; timeSteps: number; coreHours: number } | null>(),
+  ...retraction,
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [index('run_records_decision_idx').on(t.decisionId), index('run_records_approach_idx').on(t.approach, t.hardware)])
+
+// Append-only: each adoption of the team's calibration is a new version; the latest is in force.
+export const calibrationAdoptions = pgTable('calibration_adoptions', {
+  version: serial('version').primaryKey(),
+  adoptedBy: integer('adopted_by').notNull().references(() => users.id),
+  entries: jsonb('entries').$type<AdoptedEntry[]>().notNull(),
+  runIds: jsonb('run_ids').$type<number[]>().notNull(),
+  note: text('note').notNull().default(''),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+})
+
+// Append-only: the team's verification settings, one row per change; the latest is in force.
+export const teamSettings = pgTable('team_settings', {
+  id: serial('id').primaryKey(),
+  wallCheckPassFraction: doublePrecision('wall_check_pass_fraction').notNull(),
+  setBy: integer('set_by').notNull().references(() => users.id),
+  note: text('note').notNull().default(''),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 })

@@ -15,6 +15,8 @@ type AuditRow = {
 const CSV_HEADER = [
   'decision id', 'project', 'title', 'status', 'author', 'revisions', 'events', 'chain valid', 'chain broken at event',
   'last hash', 'engine version', 'ruleset version',
+  'wall checks', 'latest wall check in band', 'latest wall check verdict', 'latest wall check review', 'latest wall check sha256',
+  'grid studies', 'latest fine-grid GCI', 'CPU runs', 'actual core-hours', 'estimated core-hours of the runs', 'retracted records',
 ]
 
 // A small RFC 4180 reader, so the export is checked without the server's writer.

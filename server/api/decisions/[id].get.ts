@@ -1,7 +1,11 @@
+import type { ApproachId } from '#shared/rules'
 import { idParamSchema } from '#shared/schemas/common'
 
 export default defineEventHandler(async (event) => {
   const { id } = await getValidatedRouterParams(event, zodValidator(idParamSchema))
   const { user, isMember } = await requireDecisionAccess(event, id)
-  return decisionDetail(id, user, isMember)
+  const detail = await decisionDetail(id, user, isMember)
+  // Both estimates, the engine's and the team-calibrated one, for the approach that stands.
+  const focus = (detail.decision.override?.approach ?? detail.decision.advice.recommendation.approach) as ApproachId
+  return { ...detail, calibration: await calibrationFor(detail.decision.advice, focus) }
 })

@@ -6,6 +6,7 @@ import { DECISION_STATUS_LABELS } from '#shared/utils/decision-status'
 import { checkChain } from '../../db/event-chain'
 import { summaryQuery, toSummary } from '../decisions/queries'
 import { tables, useDb } from '../db'
+import { verificationSummaries } from '../verification/summary'
 
 const decisions = tables.decisions
 const revisions = tables.decisionRevisions
@@ -65,6 +66,9 @@ export async function listAuditDecisions(query: AuditListQuery) {
 export const AUDIT_CSV_COLUMNS = [
   'decision id', 'project', 'title', 'status', 'author', 'revisions', 'events', 'chain valid', 'chain broken at event',
   'last hash', 'engine version', 'ruleset version',
+  // After the run (records that stand; retracted ones counted apart).
+  'wall checks', 'latest wall check in band', 'latest wall check verdict', 'latest wall check review', 'latest wall check sha256',
+  'grid studies', 'latest fine-grid GCI', 'CPU runs', 'actual core-hours', 'estimated core-hours of the runs', 'retracted records',
 ] as const
 
 /**
@@ -81,12 +85,19 @@ export function csvField(value: string | number | boolean | null | undefined): s
 /** Every decision the filter selects, as CSV (CRLF lines, a UTF-8 byte-order mark for spreadsheets). */
 export async function auditCsv(filter: AuditFilter) {
   const rows = await withChains(await auditQuery(filter))
+  const verification = await verificationSummaries(rows.map(r => r.id))
   const lines = [
     AUDIT_CSV_COLUMNS.map(csvField).join(','),
-    ...rows.map(r => [
-      r.id, r.projectCode, r.title, DECISION_STATUS_LABELS[r.status], r.author.name, r.revision, r.eventCount,
-      r.chain.valid ? 'yes' : 'no', r.chain.brokenAt, r.lastHash, r.engineVersion, r.rulesetVersion,
-    ].map(csvField).join(',')),
+    ...rows.map((r) => {
+      const v = verification.get(r.id)!
+      const w = v.latestWallCheck
+      return [
+        r.id, r.projectCode, r.title, DECISION_STATUS_LABELS[r.status], r.author.name, r.revision, r.eventCount,
+        r.chain.valid ? 'yes' : 'no', r.chain.brokenAt, r.lastHash, r.engineVersion, r.rulesetVersion,
+        v.wallChecks, w?.fractionInBand, w?.verdict, w?.review, w?.sha256,
+        v.gridStudies, v.latestGciFine, v.runs, v.runs ? v.actualCoreHours : null, v.estimatedCoreHours, v.retracted,
+      ].map(csvField).join(',')
+    }),
   ]
   return `\uFEFF${lines.join('\r\n')}\r\n`
 }

@@ -9,7 +9,7 @@ import { tables, useDb } from '../db'
 // every few seconds by server/plugins/mail-delivery.ts). A failed send stays in the table and is
 // retried with backoff, so the action itself is never lost and admins can see what went wrong.
 
-export type MailKind = 'submitted' | 'approved' | 'overridden' | 'changes_requested' | 'invite' | 'reset'
+export type MailKind = 'submitted' | 'approved' | 'overridden' | 'changes_requested' | 'invite' | 'reset' | 'wall_check' | 'wall_check_reviewed'
 
 /** The closing line of every message: the same cautions every page carries. */
 export const MAIL_CAUTIONS = "Eddyledger's figures are order-of-magnitude estimates to guide a modelling decision, not results. "

@@ -2,21 +2,25 @@
 import { verifyChain } from '../decisions/events'
 import { listEvents, projectHeading, readDecision, readRevision } from '../decisions/queries'
 import { useDb } from '../db'
+import { verificationSection } from '../verification/records'
 
 /** Everything the record shows, read once so that the PDF is one consistent state. */
 export async function loadDecisionReport(decisionId: number) {
   const decision = await readDecision(decisionId)
-  const [project, events, chain, revision] = await Promise.all([
+  const signedOff = decision.status === 'approved' || decision.status === 'overridden' || decision.status === 'superseded'
+  const [project, events, chain, revision, verification] = await Promise.all([
     projectHeading(decision.projectId),
     listEvents(decisionId),
     verifyChain(useDb(), decisionId),
     readRevision(decisionId, decision.revision),
+    signedOff ? verificationSection(decisionId) : null,
   ])
   return {
     decision,
     project,
     events,
     chain,
+    verification,
     provenance: { rulesetId: revision.rulesetId, rulesetVersion: revision.rulesetVersion, engineVersion: revision.engineVersion, inputHash: revision.inputHash },
   }
 }

@@ -10,6 +10,7 @@ import { registerReportFonts, REPORT_FONTS } from './fonts'
 import { ACCENT, INK, MARGIN, MUTED, RULE, ReportWriter } from './layout'
 import { markdownToPlain } from './markdown-text'
 import { FOOTER_CAUTION, approachLabel, caseRows, eventDetails, treatmentLabel, utc, wallRows } from './sections'
+import { writeVerification } from './verification'
 
 /**
  * The PDF bytes. The same decision state gives the same bytes, except the "generated at" line
@@ -138,6 +139,8 @@ export function renderDecisionReport(data: DecisionReportData, options: { genera
     w.paragraph(`Source: ${rule.source}`, { size: 8, color: MUTED })
     doc.moveDown(0.4)
   }
+
+  writeVerification(w, data.verification)
 
   // History
   w.heading('History (append-only, hash-chained)')

@@ -65,7 +65,13 @@ export function eventDetails(payload: unknown): { note?: string } {
   const p = (payload && typeof payload === 'object' ? payload : {}) as Record<string, unknown>
   const parts: string[] = []
   if (typeof p.revision === 'number') parts.push(`revision ${p.revision}`)
-  if (typeof p.approach === 'string') parts.push(`chose ${approachLabel(p.approach)}`)
+  if (typeof p.runId === 'number' && typeof p.approach === 'string') parts.push(`ran ${approachLabel(p.approach)}, ${formatSig(Number(p.coreHours))} ${p.hardware === 'gpu' ? 'GPU-h' : 'core-h'}`)
+  else if (typeof p.approach === 'string') parts.push(`chose ${approachLabel(p.approach)}`)
+  if (typeof p.fractionInBand === 'number') parts.push(`${formatPercent(p.fractionInBand, 3)} of the wall in band, ${String(p.verdict)}`)
+  if (typeof p.accepted === 'boolean') parts.push(p.accepted ? 'accepted' : 'rejected')
+  if (typeof p.gciFine === 'number') parts.push(`fine-grid GCI ${formatPercent(p.gciFine, 3)}`)
+  if (typeof p.sha256 === 'string') parts.push(`sha256 ${p.sha256.slice(0, 16)}…`)
+  if (typeof p.reason === 'string') parts.push(`retracted: "${p.reason}"`)
   if (typeof p.model === 'string') parts.push(`model ${p.model}`)
   if (typeof p.wallTreatment === 'string') parts.push(treatmentLabel(p.wallTreatment))
   if (Array.isArray(p.disagreedRules) && p.disagreedRules.length) parts.push(`disagreed with rule ${p.disagreedRules.join(', ')}`)
