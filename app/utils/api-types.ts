@@ -9,3 +9,7 @@ export type AuditRow = ApiResponse<'/api/audit/decisions'>['decisions'][number]
 export type ChainCheck = ApiResponse<'/api/decisions/:id/verify'>
 export type TimelineEvent = ApiResponse<'/api/decisions/:id/events'>['events'][number]
 export type OverviewProjectRow = ApiResponse<'/api/overview'>['compute']['projects'][number]
+export type DecisionDetail = ApiResponse<'/api/decisions/:id'>
+export type DecisionView = DecisionDetail['decision']
+export type DecisionPermissions = DecisionDetail['permissions']
+export type RevisionView = ApiResponse<'/api/decisions/:id/revisions/:n'>['revision']

@@ -22,7 +22,7 @@ describe('markdownToPlain', () => {
 
 /** A decision state built the way the server builds one: engine advice, an override, chained events. */
 function overriddenCondenser(text: { title?: string; comment?: string; author?: string } = {}): DecisionReportData {
-  const record = adviceRecord(CONDENSER_WAKE)
+  const record = adviceRecord({ caseInput: CONDENSER_WAKE })
   const firstFired = record.advice.trace.find(t => t.fired)!.rule
   const { override } = overrideRecord(
     { caseInput: record.caseInput, advice: record.advice },
