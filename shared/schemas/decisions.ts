@@ -68,7 +68,14 @@ function sortedJson(value: unknown): string {
 function checkCaseSubmission(body: CaseSubmissionIn, ctx: z.RefinementCtx, required: boolean) {
   const requested = body.requested
   if (body.entered) {
-    const checked = validateCaseForm(body.entered)
+    // The object's own checks (units, structure) may have failed already; then there is no case to
+    // check, and their messages say what is wrong.
+    let checked: ReturnType<typeof validateCaseForm>
+    try {
+      checked = validateCaseForm(body.entered)
+    } catch {
+      return
+    }
     if (!checked.ok) {
       for (const [path, message] of Object.entries(checked.errors)) {
         ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['entered', ...path.split('.')], message })
