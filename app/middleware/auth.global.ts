@@ -10,9 +10,9 @@ declare module '#app' {
 
 export default defineNuxtRouteMiddleware((to) => {
   const { loggedIn, user } = useUserSession()
-  if (to.path === '/login' && loggedIn.value) return navigateTo('/projects')
+  if (to.path === '/login' && loggedIn.value) return navigateTo(landingFor(user.value?.role))
   if (PUBLIC_PAGES.includes(to.path)) return
   if (!loggedIn.value) return navigateTo({ path: '/login', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
   const roles = to.meta.roles
-  if (roles && user.value && !roles.includes(user.value.role)) return navigateTo('/projects')
+  if (roles && user.value && !roles.includes(user.value.role)) return navigateTo(landingFor(user.value.role))
 })

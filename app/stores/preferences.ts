@@ -1,23 +1,24 @@
 import { defineStore } from 'pinia'
 import { ref } from 'vue'
-import { UNIT_SYSTEMS, defaultUnit, type QuantityKind, type UnitSystem } from '#shared/units'
+import { defaultUnit, unitSystemOf, type QuantityKind, type UnitSystem } from '#shared/units'
 
 const STORAGE_KEY = 'eddyledger.unitSystem'
 
 /**
- * The engineer's unit system, kept in this browser only. The server renders SI; the stored choice
- * is read after mounting (load()), so hydration matches and forms then convert their fields.
+ * The unit system the engineer last chose, kept in this browser only: a new case starts in it. A
+ * saved decision keeps its own system (stored with it). The server renders SI; the stored choice is
+ * read after mounting (load()), so hydration matches.
  */
 export const usePreferencesStore = defineStore('preferences', () => {
-  const unitSystem = ref<UnitSystem>('SI')
+  const unitSystem = ref<UnitSystem>('si')
   const loaded = ref(false)
 
   function load() {
     if (!import.meta.client || loaded.value) return
     loaded.value = true
     try {
-      const stored = window.localStorage.getItem(STORAGE_KEY)
-      if (stored && (UNIT_SYSTEMS as readonly string[]).includes(stored)) unitSystem.value = stored as UnitSystem
+      const stored = unitSystemOf(window.localStorage.getItem(STORAGE_KEY))
+      if (stored) unitSystem.value = stored
     } catch {
       // Storage may be blocked (private mode, policy); SI stays the default.
     }

@@ -13,3 +13,7 @@ export type VerificationView = ApiResponse<'/api/decisions/:id/verification'>
 export type WallCheckView = VerificationView['wallChecks'][number]
 export type GridStudyView = VerificationView['gridStudies'][number]
 export type RunView = VerificationView['runs'][number]
+export type DecisionDetail = ApiResponse<'/api/decisions/:id'>
+export type DecisionView = DecisionDetail['decision']
+export type DecisionPermissions = DecisionDetail['permissions']
+export type RevisionView = ApiResponse<'/api/decisions/:id/revisions/:n'>['revision']

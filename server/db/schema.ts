@@ -5,7 +5,9 @@ import {
   bigserial, boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core'
 import type { Advice, CaseInput } from '../../shared/rules'
-import type { DecisionEventPayload, DecisionOverride } from '../../shared/types/decisions'
+import type { EnteredCase } from '../../shared/schemas/case-form'
+import type { DecisionEventPayload, DecisionOverride, RequestedChoice } from '../../shared/types/decisions'
+import { UNIT_SYSTEMS } from '../../shared/units/catalogue'
 import { DECISION_STATUSES } from '../../shared/utils/decision-status'
 import { ROLES } from '../../shared/utils/roles'
 import { APPROACH_IDS } from '../../shared/rules/approaches'
@@ -23,6 +25,7 @@ export const EVENT_TYPES = [
 export const roleEnum = pgEnum('role', ROLES)
 export const decisionStatusEnum = pgEnum('decision_status', DECISION_STATUSES)
 export const eventTypeEnum = pgEnum('decision_event_type', EVENT_TYPES)
+export const unitSystemEnum = pgEnum('unit_system', UNIT_SYSTEMS)
 
 const timestamps = {
   createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
@@ -74,7 +77,9 @@ export const decisions = pgTable('decisions', {
   version: integer('version').notNull().default(1),
   currentRevision: integer('current_revision').notNull().default(1),
   authorId: integer('author_id').notNull().references(() => users.id),
-  // The reviewer's chosen treatment when overridden: { approach, model, wallTreatment, yPlusTarget, wall, comment, reviewer }.
+  // The unit system of the current revision, for lists and mail.
+  unitSystem: unitSystemEnum('unit_system').notNull().default('si'),
+  // The reviewer's choice when overridden, with its recomputed near-wall mesh and cost.
   override: jsonb('override').$type<DecisionOverride>(),
   supersedesId: integer('supersedes_id'),
   supersededById: integer('superseded_by_id'),
@@ -86,7 +91,13 @@ export const decisionRevisions = pgTable('decision_revisions', {
   id: serial('id').primaryKey(),
   decisionId: integer('decision_id').notNull().references(() => decisions.id),
   revision: integer('revision').notNull(),
+  // The engine's SI case; beside it the values as typed, with their units, and the unit system.
   caseInput: jsonb('case_input').$type<CaseInput>().notNull(),
+  unitSystem: unitSystemEnum('unit_system').notNull().default('si'),
+  // Null on revisions stored before the typed values were kept: shown converted from SI.
+  entered: jsonb('entered').$type<EnteredCase>(),
+  // The engineer's own approach or wall treatment against the engine's, with the reason and figures.
+  requested: jsonb('requested').$type<RequestedChoice>(),
   advice: jsonb('advice').$type<Advice>().notNull(),
   notes: text('notes').notNull().default(''),
   inputHash: text('input_hash').notNull(),

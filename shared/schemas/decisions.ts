@@ -11,6 +11,8 @@ import {
   caseInputSchema,
 } from '../rules'
 import { DECISION_STATUSES } from '../utils/decision-status'
+import { enteredCaseSchema, enteredFromCaseInput, unitSystemSchema, validateCaseForm } from './case-form'
+import { impliedTreatment, requestedChoiceSchema, yPlusConflict } from './requested-choice'
 
 // A review comment must say why: a sentence, not a tick.
 export const MIN_REVIEW_COMMENT = 15
@@ -36,20 +38,103 @@ function commentSchema(what: string, min = 1) {
 
 export const adviceRequestSchema = z.object({ caseInput: caseInputSchema }, { required_error: 'A case input is required.' })
 
+/**
+ * A case as a form or an API client sends it: the values as typed with their units ("entered",
+ * with the unit system) or the engine's SI case ("caseInput"), and optionally the engineer's own
+ * approach or wall treatment. The output always carries both the SI case and the typed values.
+ */
+const caseSubmissionFields = {
+  caseInput: caseInputSchema.optional(),
+  entered: enteredCaseSchema.optional(),
+  unitSystem: unitSystemSchema.optional(),
+  requested: requestedChoiceSchema.optional(),
+}
+type CaseSubmissionIn = {
+  caseInput?: z.output<typeof caseInputSchema>
+  entered?: z.output<typeof enteredCaseSchema>
+  unitSystem?: z.output<typeof unitSystemSchema>
+  requested?: z.output<typeof requestedChoiceSchema>
+}
+
+function sortedJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(sortedJson).join(',')}]`
+  if (value && typeof value === 'object') {
+    return `{${Object.keys(value).sort().filter(k => (value as Record<string, unknown>)[k] !== undefined)
+      .map(k => `${JSON.stringify(k)}:${sortedJson((value as Record<string, unknown>)[k])}`).join(',')}}`
+  }
+  return JSON.stringify(value)
+}
+
+function checkCaseSubmission(body: CaseSubmissionIn, ctx: z.RefinementCtx, required: boolean) {
+  const requested = body.requested
+  if (body.entered) {
+    // The object's own checks (units, structure) may have failed already; then there is no case to
+    // check, and their messages say what is wrong.
+    let checked: ReturnType<typeof validateCaseForm>
+    try {
+      checked = validateCaseForm(body.entered)
+    } catch {
+      return
+    }
+    if (!checked.ok) {
+      for (const [path, message] of Object.entries(checked.errors)) {
+        ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['entered', ...path.split('.')], message })
+      }
+      return
+    }
+    const conflict = yPlusConflict(checked.input.yPlusTarget, impliedTreatment(requested ?? {}))
+    if (conflict) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['entered', 'yPlusTarget'], message: conflict })
+    if (body.caseInput && sortedJson(body.caseInput) !== sortedJson(checked.input)) {
+      ctx.addIssue({
+        code: z.ZodIssueCode.custom,
+        path: ['caseInput'],
+        message: 'The SI case input does not match the values as entered; send the entered values alone.',
+      })
+    }
+    return
+  }
+  if (!body.caseInput) {
+    if (required) {
+      ctx.addIssue({
+        code: z.ZodIssueCode.custom,
+        path: ['caseInput'],
+        message: 'A case is required: the values as entered with their units, or the case input in SI.',
+      })
+    }
+    return
+  }
+  const conflict = yPlusConflict(body.caseInput.yPlusTarget, impliedTreatment(requested ?? {}))
+  if (conflict) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['caseInput', 'yPlusTarget'], message: conflict })
+}
+
+/** The SI case and the typed values of a checked submission (the SI case derived from the typed values when given). */
+function withCase<T extends CaseSubmissionIn>(body: T) {
+  const { caseInput, entered, unitSystem, requested, ...rest } = body
+  const system = unitSystem ?? 'si'
+  const input = entered ? (validateCaseForm(entered) as { ok: true; input: z.output<typeof caseInputSchema> }).input : caseInput!
+  return {
+    ...rest,
+    caseInput: input,
+    unitSystem: system,
+    entered: entered ?? enteredFromCaseInput(input, system),
+    requested: requested && (requested.approach || requested.wallTreatment) ? requested : undefined,
+  }
+}
+
 export const decisionCreateSchema = z.object({
   title: decisionTitleSchema,
-  caseInput: caseInputSchema,
   notes: notesSchema.optional(),
-})
-export type DecisionCreateBody = z.infer<typeof decisionCreateSchema>
+  ...caseSubmissionFields,
+}).superRefine((body, ctx) => checkCaseSubmission(body, ctx, true)).transform(withCase)
+export type DecisionCreateBody = z.output<typeof decisionCreateSchema>
 
 export const decisionReviseSchema = z.object({
-  caseInput: caseInputSchema,
   notes: notesSchema.optional(),
   title: decisionTitleSchema.optional(),
   version: versionSchema,
-})
-export type DecisionReviseBody = z.infer<typeof decisionReviseSchema>
+  ...caseSubmissionFields,
+}).superRefine((body, ctx) => checkCaseSubmission(body, ctx, true)).transform(withCase)
+export type DecisionReviseBody = z.output<typeof decisionReviseSchema>
 
 export const decisionListQuerySchema = z.object({
   status: z.enum(DECISION_STATUSES, {

@@ -1,10 +1,20 @@
 /** The units each dimensional field of the questionnaire accepts, and the default per unit system. */
 
-export const QUANTITY_KINDS = ['length', 'velocity', 'temperature', 'pressure', 'viscosity', 'density', 'roughness'] as const
+export const QUANTITY_KINDS = ['length', 'velocity', 'temperature', 'pressure', 'viscosity', 'density', 'roughness', 'stress'] as const
 export type QuantityKind = (typeof QUANTITY_KINDS)[number]
 
-export const UNIT_SYSTEMS = ['SI', 'imperial'] as const
+/** A decision keeps the system its case was typed in; the engine always works in SI. */
+export const UNIT_SYSTEMS = ['si', 'imperial'] as const
 export type UnitSystem = (typeof UNIT_SYSTEMS)[number]
+
+export const UNIT_SYSTEM_LABELS: Readonly<Record<UnitSystem, string>> = { si: 'SI units', imperial: 'Imperial units' }
+
+/** A stored or remembered unit-system name, older spellings included ("SI"); null when unknown. */
+export function unitSystemOf(value: unknown): UnitSystem | null {
+  if (typeof value !== 'string') return null
+  const lower = value.toLowerCase()
+  return (UNIT_SYSTEMS as readonly string[]).includes(lower) ? (lower as UnitSystem) : null
+}
 
 export interface UnitOption {
   /** our id, stored in forms and preferences */
@@ -33,7 +43,7 @@ export const UNIT_CATALOGUE: Readonly<Record<QuantityKind, QuantityCatalogue>> =
       { id: 'in', label: 'in', expr: 'in' },
       { id: 'ft', label: 'ft', expr: 'ft' },
     ],
-    defaults: { SI: 'm', imperial: 'ft' },
+    defaults: { si: 'm', imperial: 'ft' },
   },
   velocity: {
     label: 'Velocity',
@@ -44,7 +54,7 @@ export const UNIT_CATALOGUE: Readonly<Record<QuantityKind, QuantityCatalogue>> =
       { id: 'ft/s', label: 'ft/s', expr: 'ft/s' },
       { id: 'kn', label: 'kn', expr: 'knot' },
     ],
-    defaults: { SI: 'm/s', imperial: 'ft/s' },
+    defaults: { si: 'm/s', imperial: 'ft/s' },
   },
   temperature: {
     label: 'Temperature',
@@ -54,7 +64,7 @@ export const UNIT_CATALOGUE: Readonly<Record<QuantityKind, QuantityCatalogue>> =
       { id: 'degC', label: '°C', expr: 'degC' },
       { id: 'degF', label: '°F', expr: 'degF' },
     ],
-    defaults: { SI: 'degC', imperial: 'degF' },
+    defaults: { si: 'degC', imperial: 'degF' },
   },
   pressure: {
     label: 'Pressure',
@@ -65,7 +75,7 @@ export const UNIT_CATALOGUE: Readonly<Record<QuantityKind, QuantityCatalogue>> =
       { id: 'bar', label: 'bar', expr: 'bar' },
       { id: 'psi', label: 'psi', expr: 'psi' },
     ],
-    defaults: { SI: 'kPa', imperial: 'psi' },
+    defaults: { si: 'kPa', imperial: 'psi' },
   },
   viscosity: {
     label: 'Dynamic viscosity',
@@ -75,7 +85,7 @@ export const UNIT_CATALOGUE: Readonly<Record<QuantityKind, QuantityCatalogue>> =
       { id: 'mPa s', label: 'mPa·s', expr: 'mPa s' },
       { id: 'cP', label: 'cP', expr: 'cP' },
     ],
-    defaults: { SI: 'Pa s', imperial: 'cP' },
+    defaults: { si: 'Pa s', imperial: 'cP' },
   },
   density: {
     label: 'Density',
@@ -84,7 +94,7 @@ export const UNIT_CATALOGUE: Readonly<Record<QuantityKind, QuantityCatalogue>> =
       { id: 'kg/m3', label: 'kg/m³', expr: 'kg/m^3' },
       { id: 'lb/ft3', label: 'lb/ft³', expr: 'lbm/ft^3' },
     ],
-    defaults: { SI: 'kg/m3', imperial: 'lb/ft3' },
+    defaults: { si: 'kg/m3', imperial: 'lb/ft3' },
   },
   roughness: {
     label: 'Roughness',
@@ -95,7 +105,17 @@ export const UNIT_CATALOGUE: Readonly<Record<QuantityKind, QuantityCatalogue>> =
       { id: 'um', label: 'µm', expr: 'um' },
       { id: 'in', label: 'in', expr: 'in' },
     ],
-    defaults: { SI: 'mm', imperial: 'in' },
+    defaults: { si: 'mm', imperial: 'in' },
+  },
+  // Wall shear stress in the near-wall figures; pounds-force per square foot in imperial.
+  stress: {
+    label: 'Stress',
+    si: 'Pa',
+    units: [
+      { id: 'Pa', label: 'Pa', expr: 'Pa' },
+      { id: 'psf', label: 'lbf/ft²', expr: 'lbf/ft^2' },
+    ],
+    defaults: { si: 'Pa', imperial: 'psf' },
   },
 }
 

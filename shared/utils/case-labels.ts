@@ -55,7 +55,7 @@ export const CASE_HELP = {
   lengthInternal: 'Hydraulic diameter of the duct or pipe. The Reynolds number and the friction factor are based on it.',
   roughness: 'Equivalent sand-grain roughness of the wall, for internal flow. Leave empty for a smooth wall.',
   turbulenceIntensity:
-    'Turbulence intensity of the incoming flow, in percent of the velocity. Sets the large-eddy Reynolds number and the Kolmogorov estimates.',
+    'Turbulence intensity of the incoming flow, in percent of the velocity. Sets the large-eddy Reynolds number (intensity × Re) and the Kolmogorov estimates.',
   physics: 'Physics that change which approach is trusted. Each one ticked can fire rules in the reasoning.',
   quantities: 'What the simulation must deliver. Mean forces suit RANS; unsteady loads, noise and statistics need time-resolved methods.',
   coreHours: 'Total compute you can spend on this case, in core-hours (cores × hours).',
@@ -64,4 +64,16 @@ export const CASE_HELP = {
   yPlusTarget:
     'Optional. The y+ of the first cell centre you want; left empty, each wall treatment uses its own (≈1 resolved, ≈30-100 wall functions).',
   growthRatio: 'Ratio of successive cell heights away from the wall. Sets how many layers reach the boundary-layer edge.',
+  requestedApproach:
+    'Optional. The approach you mean to use if it is not the engine\'s, e.g. what a reviewer asked for. The record shows it beside the engine\'s recommendation, costed.',
+  requestedWallTreatment:
+    'Optional. The near-wall treatment you mean to use. A target y+ above must suit it: a resolved wall below 5, log-law wall functions from 30 to 300, a wall model from 30.',
+  requestedReason: 'Why you choose differently from the engine: a sentence for the reviewer.',
+} as const
+
+/** Names of the figures a case and its advice are shown with (our own words). */
+export const FIGURE_LABELS = {
+  reynolds: 'Reynolds number',
+  reynoldsTurbulent: 'Large-eddy Reynolds number',
+  mach: 'Mach number',
 } as const

@@ -5,13 +5,14 @@ import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
-import { formatQuantity, formatSig } from '#shared/utils/format'
+import { formatDistance } from '#shared/format/case-rows'
+import { formatInput } from '#shared/utils/format'
 import { APPROACH_LABELS, GENERAL_CAUTIONS, type ApproachId } from '#shared/rules'
 import { ApiClient, signIn } from '../support/api-client'
 import { projectIds } from '../support/decisions'
 
 type Detail = {
-  decision: { id: number; title: string; status: string; version: number; advice: any; override: any }
+  decision: { id: number; title: string; status: string; version: number; advice: any; override: any; entered: any; unitSystem: 'si' | 'imperial'; caseInput: any }
   project: { code: string }
   events: { type: string; hash: string; payload: any }[]
 }
@@ -93,13 +94,16 @@ describe('GET /api/decisions/:id/report.pdf', () => {
     // The near-wall figures are the stored override's, recomputed for its wall treatment (same
     // numbers as GET /api/decisions/:id; the physics is checked in tests/unit/shared/rules).
     expectWords(text, "Near-wall mesh for the reviewer's choice (recomputed)")
-    expectWords(text, formatQuantity(decision.override.wall.firstCellHeight, 'm'))
+    expectWords(text, formatDistance(decision.override.wall.firstCellHeight, decision.unitSystem))
+    // Each column costed for its own choice: the reviewer's core-hours beside the engine's.
+    expectWords(text, 'Core-hours')
     for (const caution of GENERAL_CAUTIONS) expectWords(text, caution)
     for (const caution of decision.advice.cautions as string[]) expectWords(text, caution)
-    // The engineer's inputs stand as entered, not rounded to three figures (1024 cores, 101325 Pa).
-    expectWords(text, `${formatSig(decision.caseInput.budget.cores, 6)} cores`)
+    // The engineer's inputs stand as typed, in their units, not rounded to three figures (1,024 cores, 101.325 kPa).
+    expectWords(text, `Case input as typed (${decision.unitSystem === 'si' ? 'SI' : 'imperial'} units)`)
+    expectWords(text, `Cores ${formatInput(decision.caseInput.budget.cores)}`)
     expect(decision.caseInput.budget.cores % 10).not.toBe(0)
-    expectWords(text, formatQuantity(decision.caseInput.fluid.pressurePa, 'Pa', 6))
+    expectWords(text, `Static pressure ${formatInput(decision.entered.fluid.pressure.value)} kPa`)
 
     for (const event of detail.events) {
       expect(text).toContain(event.type)

@@ -396,6 +396,25 @@ describe('review notices', () => {
     expect(toOther!.to.map(t => t.address)).toEqual([demoEmail('reviewer2')])
   })
 
+  it('gives the reviewers the case as the engineer typed it, in its units', async () => {
+    // The KB-101 ferry hull in imperial units: 59 °F water, 24 ft/s, 98 ft (our own scenario).
+    const entered = {
+      regime: 'external', geometry: 'streamlined', separation: 'mild', quantities: ['forces'],
+      fluid: { medium: 'water', temperature: { value: 59, unit: 'degF' }, pressure: { unit: 'psi' }, density: { unit: 'lb/ft3' }, viscosity: { unit: 'cP' } },
+      velocity: { value: 24, unit: 'ft/s' }, length: { value: 98, unit: 'ft' }, roughness: { unit: 'in' },
+      turbulenceIntensityPercent: 1, budget: { coreHours: 50_000, cores: 256, wallClockHours: 72 }, growthRatio: 1.2,
+    }
+    const title = `Imperial notice ${unique()}`
+    const created = await clients.engineer!.post(`/api/projects/${projects['KB-101']}/decisions`, { title, entered, unitSystem: 'imperial' })
+    expect(created.status, JSON.stringify(created.body)).toBe(201)
+    expect((await clients.engineer!.post(`/api/decisions/${created.body.decision.id}/submit`, { version: created.body.decision.version })).status).toBe(200)
+    const [mail] = await waitForMail(m => m.subject.includes(title))
+    expect(mail!.text).toContain('The case, as typed (Imperial units):')
+    expect(mail!.text).toContain('Free-stream velocity: 24\u202fft/s')
+    expect(mail!.text).toContain('Temperature: 59\u202f°F')
+    expect(mail!.text).not.toContain('m/s')
+  })
+
   it('tells the author of an approval, an override and a request for changes, with the comment', async () => {
     const approved = await submitted('KB-102', 'engineer2')
     expect((await clients.reviewer!.post(`/api/decisions/${approved.decision.id}/approve`,

@@ -10,12 +10,13 @@ type Detail = {
   decision: {
     id: number; projectId: number; status: string; createdAt: string
     caseInput: { budget: { coreHours: number } }
-    advice: { recommendation: { approach: string; model: string }; approaches: { id: string; coreHours: number }[]; trace: { rule: string; fired: boolean }[] }
-    override: { approach: string; model: string; disagreedRules: string[] } | null
+    advice: { recommendation: { approach: string; model: string }; approaches: { id: string; model: string; coreHours: number }[]; trace: { rule: string; fired: boolean }[] }
+    override: { approach: string; model: string; disagreedRules: string[]; cost?: { coreHours: number } } | null
+    requested: { figures: { approach: string; cost: { coreHours: number } } } | null
   }
 }
 type Row = {
-  id: number; projectId: number; status: string; createdDay: string
+  id: number; projectId: number; status: string; createdDay: string; overridden: boolean
   approach: string; model: string; engineApproach: string; coreHours: number; budget: number; disagreedRules: string[]
 }
 
@@ -33,14 +34,17 @@ async function readAllDecisions(): Promise<Row[]> {
       const list = (await lead.get(`/api/projects/${id}/decisions?pageSize=100&page=${page}`)).body
       for (const { id: decisionId } of list.decisions as { id: number }[]) {
         const { decision: d } = (await lead.get(`/api/decisions/${decisionId}`)).body as Detail
-        // The approach a decision stands for: the reviewer's when overridden, else the engine's.
-        const approach = d.override?.approach ?? d.advice.recommendation.approach
+        // The approach a decision stands for: the reviewer's when overridden, else the engineer's
+        // own when requested, else the engine's; its cost recomputed for that choice.
+        const approach = d.override?.approach ?? d.requested?.figures.approach ?? d.advice.recommendation.approach
+        const engineEntry = d.advice.approaches.find(a => a.id === approach)!
         rows.push({
           id: d.id, projectId: d.projectId, status: d.status, createdDay: d.createdAt.slice(0, 10),
+          overridden: d.override !== null,
           approach,
-          model: d.override?.model ?? d.advice.recommendation.model,
+          model: d.override?.model ?? engineEntry.model,
           engineApproach: d.advice.recommendation.approach,
-          coreHours: d.advice.approaches.find(a => a.id === approach)!.coreHours,
+          coreHours: d.override ? (d.override.cost?.coreHours ?? engineEntry.coreHours) : (d.requested?.figures.cost.coreHours ?? engineEntry.coreHours),
           budget: d.caseInput.budget.coreHours,
           disagreedRules: d.override?.disagreedRules ?? [],
         })
@@ -76,8 +80,10 @@ function expectOverview(body: any, rows: Row[], projectsInScope: number[]) {
   const counts = body.methods.byApproach.map((m: any) => m.count)
   expect(counts).toEqual([...counts].sort((a, b) => b - a))
 
-  const overridden = rows.filter(r => r.status === 'overridden')
-  const reviewed = rows.filter(r => r.status === 'approved' || r.status === 'overridden').length
+  // An override stays counted after its decision is superseded: the review happened.
+  const overridden = rows.filter(r => r.overridden)
+  // Only approved or overridden decisions can be superseded, so every superseded one was reviewed.
+  const reviewed = rows.filter(r => r.status === 'approved' || r.status === 'overridden' || r.status === 'superseded').length
   expect(body.overrides.overridden).toBe(overridden.length)
   expect(body.overrides.reviewed).toBe(reviewed)
   if (reviewed) closeTo(body.overrides.rate, overridden.length / reviewed)
@@ -102,7 +108,7 @@ function expectOverview(body: any, rows: Row[], projectsInScope: number[]) {
     const mine = rows.filter(r => r.projectId === p.id)
     const mineStanding = standing.filter(r => r.projectId === p.id)
     expect(p.decisions, p.code).toBe(mine.length)
-    expect(p.overridden, p.code).toBe(mine.filter(r => r.status === 'overridden').length)
+    expect(p.overridden, p.code).toBe(mine.filter(r => r.overridden).length)
     expect(p.overBudget, p.code).toBe(mineStanding.filter(r => r.coreHours > r.budget).length)
     closeTo(p.coreHours, sum(mineStanding, r => r.coreHours))
     closeTo(p.budgetCoreHours, sum(mineStanding, r => r.budget))
@@ -142,6 +148,39 @@ beforeAll(async () => {
   }
   await createDraft(engineer, project['KB-101']!, {
     title: uniqueTitle('Overview tight budget'), caseInput: { ...DUCT_CASE, budget: { ...DUCT_CASE.budget, coreHours: 0.01 } },
+  })
+})
+
+/** A decision overridden by the reviewer: the id and the version it is at. */
+async function overridden(title: string) {
+  const draft = await createDraft(engineer, project['KB-102']!, { title: uniqueTitle(title) })
+  const inReview = await act(engineer, `/api/decisions/${draft.id}/submit`, { version: draft.version })
+  return act(reviewer, `/api/decisions/${draft.id}/override`, {
+    version: inReview.version, ...otherChoice(draft.advice.recommendation.approach),
+    comment: 'The duct bends shed eddies that a steady answer misses.', disagreedRules: [],
+  })
+}
+
+describe('an overridden decision that is superseded', () => {
+  it('still counts as an override, in the rate, the pairs and its project; its successor starts from the override', async () => {
+    const decision = await overridden('Overview superseded override')
+    const before = (await lead.get('/api/overview')).body
+    const res = await engineer.post(`/api/decisions/${decision.id}/supersede`, { version: decision.version })
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    const after = (await lead.get('/api/overview')).body
+    // The review happened: the override is counted as before, and the decision is still reviewed.
+    expect(after.overrides.overridden).toBe(before.overrides.overridden)
+    expect(after.overrides.reviewed).toBe(before.overrides.reviewed)
+    expect(after.overrides.rate).toBe(before.overrides.rate)
+    expect(after.overrides.pairs).toEqual(before.overrides.pairs)
+    const kb102 = (body: any) => body.compute.projects.find((p: { id: number }) => p.id === project['KB-102'])
+    expect(kb102(after).overridden).toBe(kb102(before).overridden)
+    // The new draft adopts the reviewer's approach as the engineer's requested choice, so method
+    // usage counts the same approach for it.
+    expect(res.body.decision.requested).toMatchObject({ approach: decision.override.approach, adoptedFrom: { decisionId: decision.id } })
+    const byApproach = (body: any) => Object.fromEntries(body.methods.byApproach.map((m: any) => [m.approach, m.count]))
+    expect(byApproach(after)[decision.override.approach]).toBe(byApproach(before)[decision.override.approach] + 1)
+    expectOverview(after, await readAllDecisions(), Object.values(project))
   })
 })
 

@@ -3,7 +3,10 @@
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { advise, caseInputSchema, wallFor } from '#shared/rules'
-import type { ApiClient} from '../support/api-client';
+import { costCaseFor } from '#shared/rules/advise'
+import { approachCost } from '#shared/rules/cost-model'
+import { flowPhysics } from '#shared/rules/flow-physics'
+import type { ApiClient } from '../support/api-client'
 import { signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, uniqueTitle } from '../support/decisions'
 
@@ -213,10 +216,15 @@ describe('transitions', () => {
     // The engine's advice is kept as it was; the override sits beside it.
     expect(decision.advice).toEqual(JSON.parse(JSON.stringify(advice)))
     // Expected wall figures: the engine's own wallFor() for the chosen treatment, run here.
-    const wall = JSON.parse(JSON.stringify(wallFor(caseInputSchema.parse(CONDENSER_CASE), 'wall-model', 60)))
+    const input = caseInputSchema.parse(CONDENSER_CASE)
+    const wall = JSON.parse(JSON.stringify(wallFor(input, 'wall-model', 60)))
+    // Expected cost: the engine's cost model for the chosen approach and treatment, run here.
+    const { budgetRatio: _, ...cost } = approachCost('wmles', costCaseFor(input, flowPhysics(input)), 'wall-model', input.budget)
     expect(decision.override).toEqual({
       ...choice,
+      requestedYPlus: 60,
       wall,
+      cost: JSON.parse(JSON.stringify(cost)),
       comment: 'The shear layers off the casing edges carry the tonal noise; resolve them with wall-modelled LES.',
       disagreedRules: [ruleId],
       reviewer: { id: expect.any(Number), name: 'Jonah Okafor' },
@@ -234,6 +242,35 @@ describe('transitions', () => {
     const wmles = advice.approaches.find(a => a.id === 'wmles')!
     expect(list.find((d: { id: number }) => d.id === draft.id)).toMatchObject({ approach: 'wmles', model: 'WALE' })
     expect(list.find((d: { id: number }) => d.id === draft.id).coreHours).toBeCloseTo(wmles.coreHours, 6)
+  })
+
+  it('costs an override of the wall treatment for that treatment, not the engine\'s (cost model of shared/rules/cost-model.ts)', async () => {
+    // The supply duct: the engine recommends steady RANS with a resolved wall.
+    const advice = advise(DUCT_CASE)
+    expect(advice.recommendation).toMatchObject({ approach: 'rans', wallTreatment: 'resolved' })
+    const d = await decisionIn('in_review', 'engineer')
+    const res = await c.reviewer.post(`/api/decisions/${d.id}/override`, {
+      version: d.version, approach: 'rans', model: 'k-omega SST', wallTreatment: 'wall-function', yPlusTarget: 50,
+      comment: 'Log-law wall functions are enough for the pressure drop we report.',
+    })
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+    const { override, advice: stored } = res.body.decision
+    const engine = stored.approaches.find((a: { id: string }) => a.id === 'rans')
+    // The mesh at the reviewer's y+, and a cost of its own: fewer near-wall layers, fewer cells, fewer core-hours.
+    expect(override.wall).toMatchObject({ wallTreatment: 'wall-function', yPlusTarget: 50 })
+    expect(override.cost.layers).toBeLessThan(stored.wall.layers)
+    expect(override.cost.cells).toBeLessThan(engine.cells)
+    expect(override.cost.coreHours).toBeLessThan(engine.coreHours)
+    expect(override.cost.wallClockHours).toBeCloseTo(override.cost.coreHours / DUCT_CASE.budget.cores, 9)
+    const input = caseInputSchema.parse(DUCT_CASE)
+    const expected = approachCost('rans', costCaseFor(input, flowPhysics(input)), 'wall-function', input.budget)
+    expect(override.cost.coreHours).toBeCloseTo(expected.coreHours, 9)
+    expect(override.cost.timeSteps).toBe(expected.timeSteps)
+    // The event keeps the recomputed core-hours; lists and the overview count them.
+    const events = (await c.auditor.get(`/api/decisions/${d.id}/events`)).body.events
+    expect(events.at(-1).payload.coreHours).toBeCloseTo(expected.coreHours, 9)
+    const list = (await c.auditor.get(`/api/projects/${engineerProject}/decisions?status=overridden&pageSize=100`)).body.decisions
+    expect(list.find((x: { id: number }) => x.id === d.id).coreHours).toBeCloseTo(expected.coreHours, 9)
   })
 
   it('answers a bad override with 400 and per-field messages', async () => {
@@ -270,6 +307,16 @@ describe('transitions', () => {
     expect(fresh).toMatchObject({ status: 'draft', version: 1, revision: 1, supersedesId: old.id, title: 'Supply duct, revised layout', author: { name: 'Tomas Lindqvist' } })
     expect(fresh.caseInput).toEqual(old.caseInput)
     expect(fresh.advice).toEqual(JSON.parse(JSON.stringify(advise(fresh.caseInput))))
+    // The case as typed and its unit system come along; the reviewer's choice becomes the
+    // engineer's requested one, so the new draft starts from what the review asked for.
+    expect(fresh.entered).toEqual(old.entered)
+    expect(fresh.unitSystem).toBe(old.unitSystem)
+    expect(fresh.requested).toMatchObject({
+      approach: 'urans', wallTreatment: 'wall-function',
+      reason: expect.stringMatching(/^Adopted from Priya Raman's override of decision \d+: Unsteady RANS is enough/),
+      adoptedFrom: { decisionId: old.id, reviewer: 'Priya Raman' },
+      figures: { approach: 'urans', wallTreatment: 'wall-function' },
+    })
     const oldNow = (await c.engineer.get(`/api/decisions/${old.id}`)).body
     expect(oldNow.decision).toMatchObject({ status: 'superseded', supersededById: fresh.id, version: old.version + 1 })
     expect(oldNow.decision.override.approach).toBe('urans')

@@ -98,14 +98,14 @@ test('an engineer describes a case in imperial units, previews the advice, saves
   await expect(page.getByTestId('advice-reynolds')).toHaveText(reynolds)
   await expect(page.getByTestId('advice-approach')).toHaveText(approach!)
   await expect(page.getByTestId('advice-core-hours')).toHaveText(coreHours!)
-  // The unit system is the engineer's preference, kept in the browser: still inches here.
+  // The decision keeps the unit system it was typed in: still inches here.
   await expect(page.getByTestId('mesh-first-cell-height')).toHaveText(firstCellHeight!)
   await expect(page.getByTestId('chain-check')).toHaveText('History verified (1 event)')
   await expect(page.getByTestId('decision-timeline')).toContainText('Created by Ada Ferreira')
   await expect(page.getByTestId('decision-revisions')).toContainText('Revision 1')
   await expect(page.getByTestId('revise-link')).toBeVisible()
   await keepScreenshot(page, 'decision-page')
-  // After a reload the stored preference still shows the mesh in inches.
+  // After a reload the decision's own unit system still shows the mesh in inches.
   await page.reload()
   await expect(page.getByTestId('mesh-first-cell-height')).toHaveText(firstCellHeight!)
 
@@ -220,6 +220,7 @@ test('the guidance articles: one per approach and wall treatment, each with caut
 
 test("QA reads an overridden decision: the reviewer's choice, its near-wall mesh, the verified history, no edit controls", async ({ page }) => {
   await signInAs(page, 'auditor')
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Projects' }).click()
   await page.getByTestId('projects-table').getByRole('link', { name: 'Rooftop condenser wake and noise' }).click()
   await expect(page.getByTestId('decisions-table')).toBeVisible()
   await expect(page.getByTestId('new-case')).toHaveCount(0)

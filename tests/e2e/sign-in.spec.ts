@@ -3,10 +3,14 @@ import { keepScreenshot, signInAs, signOut } from '../support/e2e'
 
 const NAV: Record<string, string[]> = {
   engineer: ['Projects'],
-  reviewer: ['Projects', 'Review queue'],
-  auditor: ['Projects', 'Audit', 'Overview'],
-  lead: ['Projects', 'Overview', 'Audit'],
+  reviewer: ['Review queue', 'Projects'],
+  auditor: ['Audit', 'Overview', 'Projects'],
+  lead: ['Overview', 'Audit', 'Projects'],
   admin: ['Projects', 'Users', 'Manage projects', 'Mail'],
+}
+// Each role lands where its work waits.
+const LANDING: Record<string, RegExp> = {
+  engineer: /\/projects$/, reviewer: /\/review$/, auditor: /\/audit$/, lead: /\/overview$/, admin: /\/projects$/,
 }
 const ROLE_LABEL: Record<string, string> = {
   engineer: 'Engineer', reviewer: 'Senior reviewer', auditor: 'QA auditor', lead: 'Team lead', admin: 'Administrator',
@@ -30,6 +34,7 @@ test('a wrong password shows a message at the form', async ({ page }) => {
 for (const role of Object.keys(NAV)) {
   test(`${role} signs in and sees the navigation of the role`, async ({ page }) => {
     await signInAs(page, role)
+    await expect(page).toHaveURL(LANDING[role]!)
     await expect(page.getByTestId('signed-in-user')).toContainText(ROLE_LABEL[role]!)
     const nav = page.getByRole('navigation', { name: 'Main' })
     await expect(nav.getByRole('link')).toHaveText([...NAV[role]!, 'Guidance'])
@@ -42,6 +47,12 @@ for (const role of Object.keys(NAV)) {
     await signOut(page)
   })
 }
+
+test('a signed-in reviewer who opens the address of the product lands on the review queue', async ({ page }) => {
+  await signInAs(page, 'reviewer')
+  await page.goto('/')
+  await expect(page).toHaveURL(/\/review$/)
+})
 
 test('an engineer who types an admin page address is sent back to projects', async ({ page }) => {
   await signInAs(page, 'engineer')

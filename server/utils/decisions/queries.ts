@@ -1,7 +1,9 @@
 // Reading the decision record: one decision, its revisions and events, lists and the review queue.
 import { and, asc, count, desc, eq, inArray, ne, sql, type SQL } from 'drizzle-orm'
+import { enteredFromCaseInput, type EnteredCase } from '#shared/schemas/case-form'
 import type { DecisionListQuery } from '#shared/schemas/decisions'
 import type { SessionUser } from '#shared/types/session'
+import type { UnitSystem } from '#shared/units'
 import type { DbOrTx } from '../../db/types'
 import { notFound } from '../http/errors'
 import { decisionPermissions } from './policy'
@@ -17,11 +19,25 @@ const revisions = tables.decisionRevisions
 const decisions = tables.decisions
 export const currentRevisionJoin = and(eq(revisions.decisionId, decisions.id), eq(revisions.revision, decisions.currentRevision))
 
+/**
+ * The reviewer who sent a draft back, when that is the last thing that happened to it (comments
+ * aside): a draft with changes requested reads differently from a fresh one, its status stays draft.
+ */
+export const changesRequestedBy = sql<string | null>`(SELECT CASE WHEN e.type = 'changes_requested' THEN u.name END
+  FROM decision_events e JOIN users u ON u.id = e.actor_id
+  WHERE e.decision_id = ${decisions.id} AND e.type <> 'commented' ORDER BY e.seq DESC LIMIT 1)`
+
+/** The typed values of a revision; revisions stored before they were kept are shown converted from SI. */
+function enteredOf(r: { entered: EnteredCase | null; caseInput: typeof revisions.$inferSelect['caseInput']; unitSystem: UnitSystem }): EnteredCase {
+  return r.entered ?? enteredFromCaseInput(r.caseInput, r.unitSystem)
+}
+
 export async function readDecision(id: number, db: DbOrTx = useDb()) {
   const [row] = await db.select({
     decision: decisions,
     revision: revisions,
     author: { id: tables.users.id, name: tables.users.name, email: tables.users.email },
+    changesRequestedBy,
   }).from(decisions)
     .innerJoin(revisions, currentRevisionJoin)
     .innerJoin(tables.users, eq(tables.users.id, decisions.authorId))
@@ -36,9 +52,13 @@ export async function readDecision(id: number, db: DbOrTx = useDb()) {
     version: d.version,
     revision: d.currentRevision,
     caseInput: r.caseInput,
+    unitSystem: r.unitSystem,
+    entered: enteredOf(r),
+    requested: r.requested ?? null,
     advice: r.advice,
     notes: r.notes,
     author: row.author,
+    changesRequestedBy: row.changesRequestedBy,
     override: d.override ?? null,
     supersedesId: d.supersedesId,
     supersededById: d.supersededById,
@@ -48,11 +68,17 @@ export async function readDecision(id: number, db: DbOrTx = useDb()) {
 }
 export type DecisionDto = Awaited<ReturnType<typeof readDecision>>
 
-// The approach a decision stands for: the reviewer's when overridden, else the engine's; its
-// model and the engine's core-hours for it. Shared with the overview and the audit.
-export const chosenApproach = sql<string>`coalesce(${decisions.override}->>'approach', ${revisions.advice}->'recommendation'->>'approach')`
-export const chosenModel = sql<string>`coalesce(${decisions.override}->>'model', ${revisions.advice}->'recommendation'->>'model')`
-export const chosenCoreHours = sql<number | null>`(SELECT (a->>'coreHours')::float8 FROM jsonb_array_elements(${revisions.advice}->'approaches') a WHERE a->>'id' = ${chosenApproach} LIMIT 1)`
+// The approach a decision stands for: the reviewer's when overridden, else the engineer's own
+// choice when they requested one, else the engine's; its model (the engine's for that approach
+// unless the reviewer named one) and its core-hours (the recomputed cost of an override or a
+// requested choice, else the engine's for that approach). Shared with the overview and the audit.
+export const chosenApproach = sql<string>`coalesce(${decisions.override}->>'approach', ${revisions.requested}->'figures'->>'approach', ${revisions.advice}->'recommendation'->>'approach')`
+const engineEntryOf = (field: string) => sql`(SELECT a->>${field} FROM jsonb_array_elements(${revisions.advice}->'approaches') a WHERE a->>'id' = ${chosenApproach} LIMIT 1)`
+export const chosenModel = sql<string>`coalesce(${decisions.override}->>'model', ${engineEntryOf('model')}, ${revisions.advice}->'recommendation'->>'model')`
+export const chosenCoreHours = sql<number | null>`(CASE
+  WHEN ${decisions.override} IS NOT NULL THEN coalesce((${decisions.override}->'cost'->>'coreHours')::float8, ${engineEntryOf('coreHours')}::float8)
+  WHEN ${revisions.requested} IS NOT NULL THEN (${revisions.requested}->'figures'->'cost'->>'coreHours')::float8
+  ELSE ${engineEntryOf('coreHours')}::float8 END)`
 export const budgetCoreHours = sql<number>`(${revisions.caseInput}->'budget'->>'coreHours')::float8`
 
 export function summaryQuery<Extra extends Record<string, SQL.Aliased | SQL> = Record<never, never>>(extra: Extra = {} as Extra) {
@@ -71,6 +97,8 @@ export function summaryQuery<Extra extends Record<string, SQL.Aliased | SQL> = R
     reynolds: sql<number>`(${revisions.advice}->>'reynolds')::float8`.mapWith(Number),
     coreHours: chosenCoreHours.mapWith(Number),
     budgetCoreHours: budgetCoreHours.mapWith(Number),
+    unitSystem: decisions.unitSystem,
+    changesRequestedBy,
     updatedAt: decisions.updatedAt,
     createdAt: decisions.createdAt,
   }).from(decisions)
@@ -134,6 +162,9 @@ export async function readRevision(decisionId: number, n: number) {
   return {
     revision: r.revision,
     caseInput: r.caseInput,
+    unitSystem: r.unitSystem,
+    entered: enteredOf(r),
+    requested: r.requested ?? null,
     advice: r.advice,
     notes: r.notes,
     inputHash: r.inputHash,

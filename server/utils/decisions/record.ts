@@ -3,9 +3,13 @@
 // Relative imports only, so the demo seed writes its decisions through the same steps. Guards
 // (who may do what) and error messages are the server's (policy.ts, workflow.ts, review.ts beside it).
 import { and, eq, inArray, sql } from 'drizzle-orm'
-import { advise, caseInputSchema, wallFor, type Advice, type ApproachId, type CaseInput, type CaseInputDraft, type WallTreatment } from '../../../shared/rules'
-import type { Role } from '../../../shared/utils/roles'
+import { advise, caseInputSchema, costFor, wallFor, APPROACH_LABELS, WALL_TREATMENT_LABELS, WALL_TREATMENTS_BY_APPROACH, type Advice, type ApproachId, type CaseInput, type CaseInputDraft, type WallTreatment } from '../../../shared/rules'
+import { enteredFromCaseInput, type EnteredCase } from '../../../shared/schemas/case-form'
+import type { RequestedChoiceBody } from '../../../shared/schemas/requested-choice'
+import type { ChoiceFigures, DecisionOverride, RequestedChoice } from '../../../shared/types/decisions'
+import type { UnitSystem } from '../../../shared/units/catalogue'
 import type { DecisionStatus } from '../../../shared/utils/decision-status'
+import type { Role } from '../../../shared/utils/roles'
 import { appendChainedEvent, canonicalHash, type DecisionEventType } from '../../db/event-chain'
 import * as schema from '../../db/schema'
 import type { DbOrTx } from '../../db/types'
@@ -14,15 +18,84 @@ export type RecordActor = { id: number; role: Role }
 export type DecisionRow = typeof schema.decisions.$inferSelect
 
 /**
- * The stored form of a case: parsed (defaults applied), the advice the engine gives for it (never
- * a client's), the hash of its RFC 8785 canonical JSON, and the versions that produced the advice.
+ * The near-wall mesh and the cost of one approach with one wall treatment for a case: what a
+ * reviewer's override or an engineer's own choice stands for, beside the engine's figures. The
+ * mesh is at `yPlusTarget` when given (else the treatment's own target); the cost counts the
+ * treatment's near-wall layers at the treatment's own target, as the engine counts every approach.
+ * The one place a choice is costed, so a finer cost model replaces it here alone.
  */
-export function adviceRecord(raw: CaseInputDraft) {
-  const caseInput = caseInputSchema.parse(raw)
+export function choiceFigures(caseInput: CaseInput, choice: { approach: ApproachId; wallTreatment: WallTreatment; yPlusTarget?: number }): ChoiceFigures {
+  const wall = wallFor(caseInput, choice.wallTreatment, choice.yPlusTarget, choice.approach)
+  const { cells, timeSteps, coreHours, wallClockHours, memoryGB, feasible, layers } = costFor(
+    caseInput, choice.approach, choice.wallTreatment,
+  )
+  return {
+    approach: choice.approach,
+    wallTreatment: choice.wallTreatment,
+    wall,
+    cost: { cells, timeSteps, coreHours, wallClockHours, memoryGB, feasible, layers },
+  }
+}
+
+/** An engineer's choice the engine's advice cannot take: the field and why. */
+export class RequestedChoiceError extends Error {
+  constructor(readonly field: 'approach' | 'wallTreatment', message: string) {
+    super(message)
+  }
+}
+
+/**
+ * The engineer's requested approach or treatment, completed with the engine's where one is left
+ * open (the engine's approach, or the treatment the engine counted for the requested approach),
+ * and costed. Throws RequestedChoiceError when the pair does not go together.
+ */
+export function requestedRecord(
+  caseInput: CaseInput,
+  advice: Advice,
+  requested: (RequestedChoiceBody & { adoptedFrom?: RequestedChoice['adoptedFrom'] }) | null | undefined,
+): RequestedChoice | null {
+  if (!requested || (!requested.approach && !requested.wallTreatment)) return null
+  const approach = requested.approach ?? advice.recommendation.approach
+  const engineEntry = advice.approaches.find(a => a.id === approach)
+  const wallTreatment = requested.wallTreatment ?? engineEntry?.wallTreatment ?? WALL_TREATMENTS_BY_APPROACH[approach][0]!
+  if (!WALL_TREATMENTS_BY_APPROACH[approach].includes(wallTreatment)) {
+    throw new RequestedChoiceError(
+      requested.approach ? 'wallTreatment' : 'approach',
+      `${APPROACH_LABELS[approach]}${requested.approach ? '' : ' (the engine\'s recommendation)'} does not go with ${WALL_TREATMENT_LABELS[wallTreatment].toLowerCase()}; choose an approach that does.`,
+    )
+  }
+  return {
+    ...(requested.approach ? { approach: requested.approach } : {}),
+    ...(requested.wallTreatment ? { wallTreatment: requested.wallTreatment } : {}),
+    reason: requested.reason,
+    figures: choiceFigures(caseInput, { approach, wallTreatment, yPlusTarget: caseInput.yPlusTarget }),
+    ...(requested.adoptedFrom ? { adoptedFrom: requested.adoptedFrom } : {}),
+  }
+}
+
+/** A case as the record receives it: the SI case, and how it was typed. */
+export type CaseSubmission = {
+  caseInput: CaseInputDraft
+  unitSystem?: UnitSystem
+  entered?: EnteredCase
+  requested?: (RequestedChoiceBody & { adoptedFrom?: RequestedChoice['adoptedFrom'] }) | null
+}
+
+/**
+ * The stored form of a case: parsed (defaults applied), the advice the engine gives for it (never
+ * a client's), the hash of its RFC 8785 canonical JSON, the versions that produced the advice, and
+ * the values as typed in their unit system (derived from SI when only SI was sent).
+ */
+export function adviceRecord(submission: CaseSubmission) {
+  const caseInput = caseInputSchema.parse(submission.caseInput)
   const advice = advise(caseInput)
+  const unitSystem = submission.unitSystem ?? 'si'
   return {
     caseInput,
     advice,
+    unitSystem,
+    entered: submission.entered ?? enteredFromCaseInput(caseInput, unitSystem),
+    requested: requestedRecord(caseInput, advice, submission.requested),
     inputHash: canonicalHash(caseInput),
     rulesetId: advice.ruleset.id,
     rulesetVersion: advice.ruleset.version,
@@ -35,6 +108,9 @@ function revisionValues(decisionId: number, revision: number, record: ReturnType
     decisionId,
     revision,
     caseInput: record.caseInput,
+    unitSystem: record.unitSystem,
+    entered: record.entered,
+    requested: record.requested,
     advice: record.advice,
     notes,
     inputHash: record.inputHash,
@@ -48,24 +124,30 @@ function revisionValues(decisionId: number, revision: number, record: ReturnType
 
 function revisionPayload(revision: number, record: ReturnType<typeof adviceRecord>) {
   const { approach, model, wallTreatment } = record.advice.recommendation
-  return { revision, inputHash: record.inputHash, approach, model, wallTreatment, rulesetVersion: record.rulesetVersion }
+  const requested = record.requested
+    ? { requested: { approach: record.requested.figures.approach, wallTreatment: record.requested.figures.wallTreatment, reason: record.requested.reason } }
+    : {}
+  return {
+    revision, inputHash: record.inputHash, approach, model, wallTreatment, rulesetVersion: record.rulesetVersion,
+    unitSystem: record.unitSystem, ...requested,
+  }
 }
 
 /** A new draft decision with revision 1 and its 'created' event. `at` backdates (demo seed only). */
-export async function insertDecision(tx: DbOrTx, input: {
+export async function insertDecision(tx: DbOrTx, input: CaseSubmission & {
   projectId: number
   title: string
-  caseInput: CaseInputDraft
   notes?: string
   author: RecordActor
   supersedesId?: number
   at?: Date
 }) {
-  const record = adviceRecord(input.caseInput)
+  const record = adviceRecord(input)
   const at = input.at ?? new Date()
   const [decision] = await tx.insert(schema.decisions).values({
     projectId: input.projectId,
     title: input.title,
+    unitSystem: record.unitSystem,
     authorId: input.author.id,
     supersedesId: input.supersedesId ?? null,
     createdAt: at,
@@ -91,7 +173,7 @@ export async function changeDecision(tx: DbOrTx, input: {
   decisionId: number
   version: number
   from: readonly DecisionStatus[]
-  set: Partial<Pick<DecisionRow, 'status' | 'title' | 'override' | 'supersededById'>> & { nextRevision?: boolean }
+  set: Partial<Pick<DecisionRow, 'status' | 'title' | 'override' | 'supersededById' | 'unitSystem'>> & { nextRevision?: boolean }
   // The payload may depend on the changed row (e.g. the new revision number).
   event: { type: DecisionEventType; actor: RecordActor; payload?: Record<string, unknown> | ((row: DecisionRow) => Record<string, unknown>) }
   at?: Date
@@ -121,22 +203,21 @@ export async function changeDecision(tx: DbOrTx, input: {
 }
 
 /** A new revision of a draft: the engine's advice for the new input, the 'revised' event. Null when stale or not a draft. */
-export async function reviseDecisionRecord(tx: DbOrTx, input: {
+export async function reviseDecisionRecord(tx: DbOrTx, input: CaseSubmission & {
   decisionId: number
   version: number
-  caseInput: CaseInputDraft
   notes?: string
   title?: string
   actor: RecordActor
   at?: Date
 }) {
-  const record = adviceRecord(input.caseInput)
+  const record = adviceRecord(input)
   const at = input.at ?? new Date()
   const row = await changeDecision(tx, {
     decisionId: input.decisionId,
     version: input.version,
     from: ['draft'],
-    set: { nextRevision: true, ...(input.title ? { title: input.title } : {}) },
+    set: { nextRevision: true, unitSystem: record.unitSystem, ...(input.title ? { title: input.title } : {}) },
     event: { type: 'revised', actor: input.actor, payload: changed => revisionPayload(changed.currentRevision, record) },
     at,
   })
@@ -153,16 +234,16 @@ export async function reviseDecisionRecord(tx: DbOrTx, input: {
 }
 
 /**
- * What a decision's override holds: the reviewer's choice with the near-wall figures recomputed for
- * the chosen treatment, the reason, and the rules disagreed with; plus the event payload, which
- * also keeps what the engine had recommended.
+ * What a decision's override holds: the reviewer's choice with the near-wall figures and the cost
+ * recomputed for the chosen approach and treatment, the reason, and the rules disagreed with; plus
+ * the event payload, which also keeps what the engine had recommended.
  */
 export function overrideRecord(
   current: { caseInput: CaseInput; advice: Advice },
   choice: { approach: ApproachId; model: string; wallTreatment: WallTreatment; yPlusTarget?: number; comment: string; disagreedRules: string[] },
   reviewer: { id: number; name: string },
-) {
-  const wall = wallFor(current.caseInput, choice.wallTreatment, choice.yPlusTarget)
+): { override: DecisionOverride; payload: Record<string, unknown> } {
+  const { wall, cost } = choiceFigures(current.caseInput, choice)
   const chosen = {
     approach: choice.approach,
     model: choice.model,
@@ -172,7 +253,7 @@ export function overrideRecord(
     disagreedRules: choice.disagreedRules,
   }
   return {
-    override: { ...chosen, wall, reviewer },
-    payload: { ...chosen, recommended: current.advice.recommendation },
+    override: { ...chosen, wall, cost, reviewer, ...(choice.yPlusTarget !== undefined ? { requestedYPlus: choice.yPlusTarget } : {}) },
+    payload: { ...chosen, coreHours: cost.coreHours, recommended: current.advice.recommendation },
   }
 }

@@ -1,8 +1,13 @@
 import { and, eq } from 'drizzle-orm'
 import { conflict, notFound } from '../http/errors'
 import type { OverrideBody } from '#shared/schemas/decisions'
+import type { CaseInput } from '#shared/rules'
+import { enteredFromCaseInput, type EnteredCase } from '#shared/schemas/case-form'
+import { impliedTreatment, yPlusConflict } from '#shared/schemas/requested-choice'
+import type { DecisionOverride } from '#shared/types/decisions'
+import type { UnitSystem } from '#shared/units'
 import type { DecisionStatus } from '#shared/utils/decision-status'
-import { changeDecision, insertDecision, overrideRecord } from './record'
+import { changeDecision, insertDecision, overrideRecord, type CaseSubmission } from './record'
 import { readDecision, findDecision } from './queries'
 import { throwConflict } from './workflow'
 import { appendEvent } from './events'
@@ -68,7 +73,8 @@ export function requestChanges(decisionId: number, body: { version: number; comm
 }
 
 async function currentRevision(db: DbOrTx, decisionId: number) {
-  const [row] = await db.select({ caseInput: tables.decisionRevisions.caseInput, advice: tables.decisionRevisions.advice, notes: tables.decisionRevisions.notes })
+  const r = tables.decisionRevisions
+  const [row] = await db.select({ caseInput: r.caseInput, advice: r.advice, notes: r.notes, unitSystem: r.unitSystem, entered: r.entered, requested: r.requested })
     .from(tables.decisionRevisions)
     .innerJoin(tables.decisions, and(
       eq(tables.decisions.id, tables.decisionRevisions.decisionId),
@@ -77,6 +83,45 @@ async function currentRevision(db: DbOrTx, decisionId: number) {
     .where(eq(tables.decisions.id, decisionId))
   if (!row) throw notFound(`Decision ${decisionId} does not exist`)
   return row
+}
+
+/**
+ * The case of a superseded decision for its successor: the same values as typed and, when the
+ * reviewer overrode it, the reviewer's approach and treatment as the engineer's requested choice,
+ * so the new draft starts from what the review asked for. A y+ target the reviewer typed comes
+ * along; one that would contradict the adopted treatment is left out.
+ */
+export function successorCase(
+  current: { caseInput: CaseInput; unitSystem: UnitSystem; entered: EnteredCase | null; requested: unknown },
+  override: DecisionOverride | null,
+  decisionId: number,
+): CaseSubmission {
+  const entered = structuredClone(current.entered ?? enteredFromCaseInput(current.caseInput, current.unitSystem))
+  const caseInput = { ...current.caseInput }
+  if (!override) {
+    const requested = current.requested as CaseSubmission['requested']
+    return { caseInput, unitSystem: current.unitSystem, entered, requested: requested ? { approach: requested.approach, wallTreatment: requested.wallTreatment, reason: requested.reason, adoptedFrom: requested.adoptedFrom } : null }
+  }
+  const treatment = impliedTreatment(override)
+  const reviewerYPlus = override.requestedYPlus
+  if (reviewerYPlus !== undefined && !yPlusConflict(reviewerYPlus, treatment)) {
+    caseInput.yPlusTarget = reviewerYPlus
+    entered.yPlusTarget = reviewerYPlus
+  } else if (yPlusConflict(caseInput.yPlusTarget, treatment)) {
+    delete caseInput.yPlusTarget
+    entered.yPlusTarget = undefined
+  }
+  return {
+    caseInput,
+    unitSystem: current.unitSystem,
+    entered,
+    requested: {
+      approach: override.approach,
+      wallTreatment: override.wallTreatment,
+      reason: `Adopted from ${override.reviewer.name}'s override of decision ${decisionId}: ${override.comment}`,
+      adoptedFrom: { decisionId, reviewer: override.reviewer.name },
+    },
+  }
 }
 
 /**
@@ -109,9 +154,10 @@ export async function supersedeDecision(decisionId: number, body: { version: num
     if (!old) throw notFound(`Decision ${decisionId} does not exist`)
     const project = await tx.query.projects.findFirst({ where: eq(tables.projects.id, old.projectId) })
     if (project?.archived) throw conflict(`Project ${project.code} is archived; it takes no new decisions`)
-    const { caseInput, notes } = await currentRevision(tx, decisionId)
+    const current = await currentRevision(tx, decisionId)
     const created = await insertDecision(tx, {
-      projectId: old.projectId, title: body.title ?? old.title, caseInput, notes, author: user, supersedesId: old.id,
+      projectId: old.projectId, title: body.title ?? old.title, notes: current.notes, author: user, supersedesId: old.id,
+      ...successorCase(current, old.override ?? null, old.id),
     })
     const row = await changeDecision(tx, {
       decisionId, version: body.version, from: ['approved', 'overridden'],

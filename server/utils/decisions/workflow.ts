@@ -1,13 +1,13 @@
 // Creating and revising a decision: a transaction around the record's steps, with the server's
 // refusals (archived project, stale version).
 import type { DecisionCreateBody, DecisionReviseBody } from '#shared/schemas/decisions'
-import { conflict, notFound } from '../http/errors'
+import { badRequest, conflict, notFound } from '../http/errors'
 import type { DecisionStatus } from '#shared/utils/decision-status'
 import type { SessionUser } from '#shared/types/session'
 import type { DbOrTx } from '../../db/types'
 import { statusWord } from './policy'
 import { findDecision, readDecision } from './queries'
-import { insertDecision, reviseDecisionRecord } from './record'
+import { insertDecision, RequestedChoiceError, reviseDecisionRecord } from './record'
 import { useDb } from '../db'
 
 /**
@@ -23,12 +23,19 @@ export async function throwConflict(db: DbOrTx, decisionId: number, version: num
   throw conflict(`Only a decision that is ${allowed.map(statusWord).join(' or ')} can be ${doing}; this one is ${statusWord(row.status)}`)
 }
 
+/** A requested choice the engine's advice cannot take, as a 400 at its field. */
+function refusedChoice(error: unknown): never {
+  if (error instanceof RequestedChoiceError) throw badRequest(error.message, { [`requested.${error.field}`]: [error.message] })
+  throw error
+}
+
 export async function createDecision(project: { id: number; code: string; archived: boolean }, body: DecisionCreateBody, user: SessionUser) {
   if (project.archived) throw conflict(`Project ${project.code} is archived; it takes no new decisions`)
   return useDb().transaction(async (tx) => {
     const decision = await insertDecision(tx, {
-      projectId: project.id, title: body.title, caseInput: body.caseInput, notes: body.notes, author: user,
-    })
+      projectId: project.id, title: body.title, notes: body.notes, author: user,
+      caseInput: body.caseInput, unitSystem: body.unitSystem, entered: body.entered, requested: body.requested,
+    }).catch(refusedChoice)
     return readDecision(decision.id, tx)
   })
 }
@@ -36,8 +43,9 @@ export async function createDecision(project: { id: number; code: string; archiv
 export async function reviseDecision(decisionId: number, body: DecisionReviseBody, user: SessionUser) {
   return useDb().transaction(async (tx) => {
     const row = await reviseDecisionRecord(tx, {
-      decisionId, version: body.version, caseInput: body.caseInput, notes: body.notes, title: body.title, actor: user,
-    })
+      decisionId, version: body.version, notes: body.notes, title: body.title, actor: user,
+      caseInput: body.caseInput, unitSystem: body.unitSystem, entered: body.entered, requested: body.requested,
+    }).catch(refusedChoice)
     if (!row) await throwConflict(tx, decisionId, body.version, ['draft'], 'revised')
     return readDecision(decisionId, tx)
   })

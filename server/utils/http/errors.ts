@@ -9,3 +9,8 @@ export function notFound(message: string) {
 export function conflict(message: string) {
   return createError({ statusCode: 409, message })
 }
+
+/** 400 for a request the route cannot take, with per-field messages for the form (as zodValidator gives). */
+export function badRequest(message: string, fieldErrors: Record<string, string[]> = {}) {
+  return createError({ statusCode: 400, message, data: { fieldErrors } })
+}

@@ -1,7 +1,12 @@
 import { and, eq, ne } from 'drizzle-orm'
 import { notFound } from '../http/errors'
-import { APPROACH_LABELS, WALL_TREATMENT_LABELS } from '#shared/rules'
+import { APPROACH_LABELS, WALL_TREATMENT_LABELS, type Advice } from '#shared/rules'
+import { caseRows } from '#shared/format/case-rows'
+import { enteredFromCaseInput } from '#shared/schemas/case-form'
 import type { DecisionOverride } from '#shared/types/decisions'
+import { UNIT_SYSTEM_LABELS } from '#shared/units'
+import { formatEstimate } from '#shared/utils/format'
+import { currentRevisionJoin } from '../decisions/queries'
 import type { SessionUser } from '#shared/types/session'
 import type { DbOrTx } from '../../db/types'
 import { MAIL_CAUTIONS, enqueueMail } from './outbox'
@@ -26,6 +31,13 @@ function overrideLine(o: DecisionOverride | null) {
   if (o.wallTreatment) parts.push(WALL_TREATMENT_LABELS[o.wallTreatment] ?? o.wallTreatment)
   if (o.yPlusTarget != null) parts.push(`y+ target ${o.yPlusTarget}`)
   return `The reviewer's choice: ${parts.join(', ')}.`
+}
+
+/** The override's own cost beside the engine's, in the one number format of the product. */
+function overrideCostLine(o: DecisionOverride | null, advice: Advice) {
+  const engine = advice.approaches.find(a => a.id === advice.recommendation.approach)
+  if (!o?.cost || !engine) return undefined
+  return `Its cost, recomputed for that choice: about ${formatEstimate(o.cost.coreHours)} core-hours (the engine's recommendation: ${formatEstimate(engine.coreHours)}).`
 }
 
 async function recipients(tx: DbOrTx, type: DecisionNoticeType, decision: { projectId: number; authorId: number }, actor: SessionUser) {
@@ -59,8 +71,13 @@ export async function queueDecisionNotice(tx: DbOrTx, notice: {
     override: tables.decisions.override,
     code: tables.projects.code,
     projectName: tables.projects.name,
+    caseInput: tables.decisionRevisions.caseInput,
+    entered: tables.decisionRevisions.entered,
+    unitSystem: tables.decisionRevisions.unitSystem,
+    advice: tables.decisionRevisions.advice,
   }).from(tables.decisions)
     .innerJoin(tables.projects, eq(tables.projects.id, tables.decisions.projectId))
+    .innerJoin(tables.decisionRevisions, currentRevisionJoin)
     .where(eq(tables.decisions.id, notice.decisionId))
   if (!row) throw notFound(`Decision ${notice.decisionId} does not exist`)
 
@@ -76,11 +93,19 @@ export async function queueDecisionNotice(tx: DbOrTx, notice: {
     changes_requested: `${notice.actor.name} asked for changes to "${row.title}"; it is back in draft for you.`,
   }
   const comment = notice.comment?.trim()
+  // A reviewer asked to review reads the case as the engineer typed it, in its units.
+  const entered = row.entered ?? enteredFromCaseInput(row.caseInput, row.unitSystem)
+  const inputs = notice.type === 'submitted'
+    ? ['', `The case, as typed (${UNIT_SYSTEM_LABELS[row.unitSystem]}):`, ...caseRows(entered, row.caseInput, row.unitSystem).map(r => `  ${r.label}: ${r.text}`)]
+    : []
+  const costLine = notice.type === 'overridden' ? overrideCostLine(row.override, row.advice) : undefined
   const body = (name: string) => [
     `Hello ${name},`,
     '',
     `${what[notice.type]} (project ${row.code}, ${row.projectName})`,
+    ...inputs,
     ...(notice.type === 'overridden' && overrideLine(row.override) ? ['', overrideLine(row.override)!] : []),
+    ...(costLine ? [costLine] : []),
     ...(comment ? ['', 'Comment:', comment] : []),
     '',
     `Open the decision: ${link}`,

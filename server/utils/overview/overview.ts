@@ -1,6 +1,6 @@
 // The team lead's overview: method usage, overrides and compute across projects, aggregated in
 // PostgreSQL over each decision and the advice of its current revision.
-import { and, asc, count, desc, eq, gte, lt, sql, type SQL } from 'drizzle-orm'
+import { and, asc, count, desc, eq, gte, isNotNull, lt, sql, type SQL } from 'drizzle-orm'
 import { DECISION_STATUSES, type DecisionStatus } from '#shared/utils/decision-status'
 import type { OverviewQuery } from '#shared/schemas/overview'
 import { budgetCoreHours, chosenApproach, chosenCoreHours, chosenModel, currentRevisionJoin } from '../decisions/queries'
@@ -38,6 +38,8 @@ export async function decisionOverview(query: OverviewQuery) {
     model: chosenModel.as('model'),
     engineApproach: sql<string>`${revisions.advice}->'recommendation'->>'approach'`.as('engine_approach'),
     reviewerApproach: sql<string | null>`${decisions.override}->>'approach'`.as('reviewer_approach'),
+    // An override stays on a decision that is later superseded: the review happened, so it counts.
+    overridden: sql<boolean>`(${decisions.override} IS NOT NULL)`.as('overridden'),
     coreHours: chosenCoreHours.as('core_hours'),
     budget: budgetCoreHours.as('budget'),
   }).from(decisions).innerJoin(revisions, currentRevisionJoin).where(overviewWhere(query)).as('base')
@@ -49,13 +51,15 @@ export async function decisionOverview(query: OverviewQuery) {
   const overBudget = sql<number>`(count(*) FILTER (WHERE ${base.coreHours} > ${base.budget} AND ${stands}))::int`
   const sumOf = (column: SQL.Aliased) => sql<number>`coalesce(sum(${column}) FILTER (WHERE ${stands}), 0)::float8`.mapWith(Number)
   const countStatus = (status: DecisionStatus) => sql<number>`(count(*) FILTER (WHERE ${base.status} = ${status}))::int`
+  const countOverridden = sql<number>`(count(*) FILTER (WHERE ${base.overridden}))::int`
 
   const disagreed = db.select({
     rule: sql<string>`jsonb_array_elements_text(coalesce(${decisions.override}->'disagreedRules', '[]'::jsonb))`.as('rule'),
-  }).from(decisions).where(and(overviewWhere(query), eq(decisions.status, 'overridden'))).as('disagreed')
+  }).from(decisions).where(and(overviewWhere(query), isNotNull(decisions.override))).as('disagreed')
 
-  const [byStatus, byApproach, byModel, perProject, pairs, rules, projectRows] = await Promise.all([
+  const [byStatus, [overrideTotals], byApproach, byModel, perProject, pairs, rules, projectRows] = await Promise.all([
     db.select({ status: base.status, count: n }).from(base).groupBy(base.status),
+    db.select({ overridden: countOverridden }).from(base),
     db.select({ approach: base.approach, count: n }).from(base).groupBy(base.approach).orderBy(desc(n), asc(base.approach)),
     db.select({ approach: base.approach, model: base.model, count: n }).from(base)
       .groupBy(base.approach, base.model).orderBy(desc(n), asc(base.approach), asc(base.model)),
@@ -63,13 +67,13 @@ export async function decisionOverview(query: OverviewQuery) {
       projectId: base.projectId,
       decisions: n,
       approved: countStatus('approved'),
-      overridden: countStatus('overridden'),
+      overridden: countOverridden,
       coreHours: sumOf(base.coreHours),
       budgetCoreHours: sumOf(base.budget),
       overBudget,
     }).from(base).groupBy(base.projectId),
     db.select({ engineApproach: base.engineApproach, reviewerApproach: base.reviewerApproach, count: n }).from(base)
-      .where(eq(base.status, 'overridden'))
+      .where(sql`${base.overridden}`)
       .groupBy(base.engineApproach, base.reviewerApproach)
       .orderBy(desc(n), asc(base.engineApproach), asc(base.reviewerApproach)).limit(TOP),
     db.select({ rule: disagreed.rule, count: count() }).from(disagreed).groupBy(disagreed.rule)
@@ -81,7 +85,9 @@ export async function decisionOverview(query: OverviewQuery) {
   const statusCounts = Object.fromEntries(DECISION_STATUSES.map(s => [s, 0])) as Record<DecisionStatus, number>
   for (const row of byStatus) statusCounts[row.status] = row.count
   const totalDecisions = DECISION_STATUSES.reduce((sum, s) => sum + statusCounts[s], 0)
-  const reviewed = statusCounts.approved + statusCounts.overridden
+  // Only approved or overridden decisions can be superseded, so each superseded one was reviewed.
+  const reviewed = statusCounts.approved + statusCounts.overridden + statusCounts.superseded
+  const overridden = overrideTotals?.overridden ?? 0
 
   // Every project in scope gets a row, those without decisions in the range too.
   const figures = new Map(perProject.map(row => [row.projectId, row]))
@@ -103,9 +109,9 @@ export async function decisionOverview(query: OverviewQuery) {
     decisions: { total: totalDecisions, byStatus: statusCounts },
     methods: { byApproach, byModel },
     overrides: {
-      overridden: statusCounts.overridden,
+      overridden,
       reviewed,
-      rate: reviewed ? statusCounts.overridden / reviewed : null,
+      rate: reviewed ? overridden / reviewed : null,
       pairs: pairs.map(p => ({ engineApproach: p.engineApproach, reviewerApproach: p.reviewerApproach!, count: p.count })),
       disagreedRules: rules,
     },

@@ -4,12 +4,12 @@ import PDFDocument from 'pdfkit'
 import { GENERAL_CAUTIONS } from '#shared/rules'
 import { DECISION_STATUS_LABELS } from '#shared/utils/decision-status'
 import { ROLE_LABELS, type Role } from '#shared/utils/roles'
-import { formatQuantity, formatSci, formatSig } from '#shared/utils/format'
+import { formatDuration, formatEstimate, formatQuantity, formatSig } from '#shared/utils/format'
 import type { DecisionReportData } from './data'
 import { registerReportFonts, REPORT_FONTS } from './fonts'
 import { ACCENT, INK, MARGIN, MUTED, RULE, ReportWriter } from './layout'
 import { markdownToPlain } from './markdown-text'
-import { FOOTER_CAUTION, approachLabel, caseRows, eventDetails, treatmentLabel, utc, wallRows } from './sections'
+import { FOOTER_CAUTION, approachLabel, caseRows, costComparisonRows, eventDetails, treatmentLabel, utc, wallRows } from './sections'
 import { writeVerification } from './verification'
 
 /**
@@ -78,6 +78,8 @@ export function renderDecisionReport(data: DecisionReportData, options: { genera
       ['Model', engine.model, ...(override ? [override.model] : [])],
       ['Wall treatment', treatmentLabel(engine.wallTreatment), ...(override ? [treatmentLabel(override.wallTreatment)] : [])],
       ['Target y+', formatSig(engine.yPlusTarget), ...(override ? [formatSig(override.yPlusTarget)] : [])],
+      // Each column costed for its own approach and treatment.
+      ...(override ? costComparisonRows(advice, override.cost) : []),
     ],
   )
   if (override) {
@@ -94,15 +96,30 @@ export function renderDecisionReport(data: DecisionReportData, options: { genera
     if (approval) w.paragraph(`Approved by ${approval.actor.name} on ${utc(approval.createdAt)}.`)
   }
 
-  // Case input
-  w.heading('Case input (SI units)')
+  // The engineer's own choice, against the engine's
+  const requested = decision.requested
+  if (requested) {
+    w.heading("The engineer's own choice")
+    w.table(
+      [{ header: '', width: 1 }, { header: "Engine's recommendation", width: 2 }, { header: "Engineer's choice", width: 2 }],
+      [
+        ['Approach', approachLabel(engine.approach), approachLabel(requested.figures.approach)],
+        ['Wall treatment', treatmentLabel(engine.wallTreatment), treatmentLabel(requested.figures.wallTreatment)],
+        ...costComparisonRows(advice, requested.figures.cost),
+      ],
+    )
+    w.paragraph(`Reason: ${requested.reason}`, { indent: 10 })
+  }
+
+  // Case input, as typed and in its units
+  w.heading(`Case input as typed (${decision.unitSystem === 'imperial' ? 'imperial' : 'SI'} units)`)
   w.fields(caseRows(data))
 
   // Near-wall mesh
   w.heading(override ? "Near-wall mesh for the reviewer's choice (recomputed)" : 'Near-wall mesh')
   w.paragraph('Cell-centred mesh: the first-cell height is twice the distance of its centre from the wall. Flat-plate or pipe correlations; check y+ on the real solution.', { size: 8, color: MUTED })
   doc.moveDown(0.3)
-  w.fields(wallRows(override?.wall ?? advice.wall))
+  w.fields(wallRows(override?.wall ?? advice.wall, decision.unitSystem))
 
   // Approaches
   w.heading('Approaches weighed')
@@ -117,11 +134,11 @@ export function renderDecisionReport(data: DecisionReportData, options: { genera
     advice.approaches.map((a) => [
       `${a.label}${a.id === engine.approach ? ' (recommended)' : ''}${override && a.id === chosenId ? " (reviewer's choice)" : ''}`,
       formatSig(a.score),
-      formatSci(a.cells),
-      formatSci(a.timeSteps),
-      formatSci(a.coreHours),
-      formatQuantity(a.wallClockHours, 'h'),
-      formatQuantity(a.memoryGB, 'GB'),
+      formatEstimate(a.cells),
+      formatEstimate(a.timeSteps),
+      formatEstimate(a.coreHours),
+      formatDuration(a.wallClockHours),
+      formatQuantity(a.memoryGB, 'GB', 2),
       a.feasible ? 'yes' : 'no',
     ]),
   )

@@ -1,7 +1,10 @@
-// The record's content as rows: the case as entered, the near-wall mesh, an event's details.
+// The record's content as rows: the case as typed (in its units), the near-wall mesh, the costs
+// compared, an event's details.
 import { APPROACH_LABELS, WALL_TREATMENT_LABELS, type ApproachId, type WallTreatment } from '#shared/rules'
-import { GEOMETRY_LABELS, MEDIUM_LABELS, PHYSICS_LABELS, QUANTITY_LABELS, REGIME_LABELS, SEPARATION_LABELS } from '#shared/utils/case-labels'
-import { formatPercent, formatQuantity, formatSig } from '#shared/utils/format'
+import { caseRows as typedCaseRows, formatDistance } from '#shared/format/case-rows'
+import type { ChoiceCost } from '#shared/types/decisions'
+import { defaultUnit, fromSI, unitLabel, type UnitSystem } from '#shared/units'
+import { formatDuration, formatEstimate, formatNumber, formatQuantity } from '#shared/utils/format'
 import type { DecisionReportData } from './data'
 
 export const utc = (date: Date | string) => new Date(date).toISOString().replace('T', ' ').replace(/\.\d{3}Z$/, ' UTC')
@@ -11,53 +14,52 @@ export const treatmentLabel = (id: string) => WALL_TREATMENT_LABELS[id as WallTr
 /** One line for the footer of every page: the general cautions in brief. */
 export const FOOTER_CAUTION = "Order-of-magnitude estimates for planning; verify y+ on the real solution. Your organisation's procedures, local codes and licensed engineering practice take precedence."
 
-export const INPUT_FIGURES = 6
-
+/** The case as the engineer typed it, in its units (the rows the decision page shows), then the figures the engine derived. */
 export function caseRows(data: DecisionReportData): [string, string][] {
-  const input = data.decision.caseInput
-  const { advice } = data.decision
-  const internal = input.regime === 'internal'
-  const ticked = Object.entries(input.physics ?? {}).filter(([, on]) => on).map(([k]) => PHYSICS_LABELS[k as keyof typeof PHYSICS_LABELS] ?? k)
-  // The engineer's own inputs are recorded as entered (up to INPUT_FIGURES figures), not rounded.
-  const given = (value: number | undefined, unit: string, otherwise: string) => (value === undefined ? otherwise : formatQuantity(value, unit, INPUT_FIGURES))
+  const { caseInput, advice, entered, unitSystem } = data.decision
+  const density = defaultUnit('density', unitSystem)
+  const viscosity = defaultUnit('viscosity', unitSystem)
+  const derived: [string, string][] = [
+    ['Density used', formatQuantity(fromSI('density', advice.fluid.density, density), unitLabel('density', density))],
+    ['Dynamic viscosity used', formatQuantity(fromSI('viscosity', advice.fluid.viscosity, viscosity), unitLabel('viscosity', viscosity))],
+    ['Reynolds number', `${formatNumber(advice.reynolds)} (dimensionless)`],
+    ['Large-eddy Reynolds number', `${formatNumber(advice.reynoldsTurbulent)} (intensity × Re)`],
+    ...(advice.mach !== null ? [['Mach number', `${formatNumber(advice.mach)} (dimensionless)`] as [string, string]] : []),
+  ]
   return [
-    ['Flow regime', REGIME_LABELS[input.regime]],
-    ['Geometry', GEOMETRY_LABELS[input.geometry]],
-    ['Separation expected', SEPARATION_LABELS[input.separation]],
-    ['Fluid', MEDIUM_LABELS[input.fluid.medium]],
-    ['Temperature', given(input.fluid.temperatureK, 'K', 'not given (the engine default for the fluid)')],
-    ...(input.fluid.medium === 'air' ? [['Static pressure', given(input.fluid.pressurePa, 'Pa', 'not given (one standard atmosphere)')] as [string, string]] : []),
-    ['Density used', formatQuantity(advice.fluid.density, 'kg/m³')],
-    ['Dynamic viscosity used', formatQuantity(advice.fluid.viscosity, 'Pa·s')],
-    ['Kinematic viscosity', formatQuantity(advice.fluid.kinematicViscosity, 'm²/s')],
-    [internal ? 'Bulk velocity' : 'Free-stream velocity', formatQuantity(input.velocity, 'm/s', INPUT_FIGURES)],
-    [internal ? 'Hydraulic diameter' : 'Reference length', formatQuantity(input.length, 'm', INPUT_FIGURES)],
-    ...(internal ? [['Wall roughness (sand-grain)', given(input.roughness, 'm', 'smooth wall')] as [string, string]] : []),
-    ['Turbulence intensity', `${formatSig(input.turbulenceIntensity, INPUT_FIGURES)} (${formatPercent(input.turbulenceIntensity, INPUT_FIGURES)})`],
-    ['Physics', ticked.length ? ticked.join('; ') : 'none ticked'],
-    ['Quantities of interest', input.quantities.map((q) => QUANTITY_LABELS[q] ?? q).join('; ')],
-    ['Core-hour budget', formatQuantity(input.budget.coreHours, 'core-h', INPUT_FIGURES)],
-    ['Cores', `${formatSig(input.budget.cores, INPUT_FIGURES)} cores`],
-    ['Wall-clock budget', formatQuantity(input.budget.wallClockHours, 'h', INPUT_FIGURES)],
-    ['Target y+', input.yPlusTarget === undefined ? "not set (the wall treatment's own)" : `${formatSig(input.yPlusTarget, INPUT_FIGURES)} (dimensionless)`],
-    ['Growth ratio', `${formatSig(input.growthRatio, INPUT_FIGURES)} (dimensionless)`],
-    ['Reynolds number', `${formatSig(advice.reynolds)} (dimensionless)`],
-    ...(advice.mach !== null ? [['Mach number', `${formatSig(advice.mach)} (dimensionless)`] as [string, string]] : []),
+    ...typedCaseRows(entered, caseInput, unitSystem).map((row): [string, string] => [row.label, row.text]),
+    ...derived,
   ]
 }
 
-export function wallRows(wall: DecisionReportData['decision']['advice']['wall']): [string, string][] {
+/** The near-wall figures in the decision's unit system (mm or in, Pa or lbf/ft², m/s or ft/s). */
+export function wallRows(wall: DecisionReportData['decision']['advice']['wall'], system: UnitSystem): [string, string][] {
+  const stress = defaultUnit('stress', system)
+  const speed = defaultUnit('velocity', system)
   return [
     ['Wall treatment', treatmentLabel(wall.wallTreatment)],
-    ['Target y+ (first cell centre)', `${formatSig(wall.yPlusTarget)} (dimensionless)`],
-    ['First-cell-centre distance', formatQuantity(wall.firstCellCentre, 'm')],
-    ['First-cell height (2 × centre)', formatQuantity(wall.firstCellHeight, 'm')],
-    ['Wall shear stress', formatQuantity(wall.wallShearStress, 'Pa')],
-    ['Friction velocity', formatQuantity(wall.frictionVelocity, 'm/s')],
-    ['Boundary-layer thickness', formatQuantity(wall.boundaryLayerThickness, 'm')],
-    ['Layers to the boundary-layer edge', `${formatSig(wall.layers)} layers`],
-    ['Growth ratio', `${formatSig(wall.growthRatio)} (dimensionless)`],
-    ['Skin-friction coefficient', `${formatSig(wall.skinFriction)} (dimensionless)`],
+    ['Target y+ (first cell centre)', `${formatNumber(wall.yPlusTarget)} (dimensionless)`],
+    ['First-cell-centre distance', formatDistance(wall.firstCellCentre, system)],
+    ['First-cell height (2 × centre)', formatDistance(wall.firstCellHeight, system)],
+    ['Wall shear stress', formatQuantity(fromSI('stress', wall.wallShearStress, stress), unitLabel('stress', stress))],
+    ['Friction velocity', formatQuantity(fromSI('velocity', wall.frictionVelocity, speed), unitLabel('velocity', speed))],
+    ['Boundary-layer thickness', formatDistance(wall.boundaryLayerThickness, system)],
+    ['Layers to the boundary-layer edge', `${formatNumber(wall.layers)} layers`],
+    ['Growth ratio', `${formatNumber(wall.growthRatio)} (dimensionless)`],
+    ['Skin-friction coefficient', `${formatNumber(wall.skinFriction)} (dimensionless)`],
+  ]
+}
+
+/** The cost lines of the engine's recommendation beside another choice's (an override, the engineer's own). */
+export function costComparisonRows(advice: DecisionReportData['decision']['advice'], cost: ChoiceCost | undefined): string[][] {
+  const engine = advice.approaches.find(a => a.id === advice.recommendation.approach)
+  if (!cost || !engine) return []
+  return [
+    ['Cells', formatEstimate(engine.cells), formatEstimate(cost.cells)],
+    ['Steps', formatEstimate(engine.timeSteps), formatEstimate(cost.timeSteps)],
+    ['Core-hours', formatEstimate(engine.coreHours), formatEstimate(cost.coreHours)],
+    ['Wall-clock', formatDuration(engine.wallClockHours), formatDuration(cost.wallClockHours)],
+    ['Fits the budget', engine.feasible ? 'yes' : 'no', cost.feasible ? 'yes' : 'no'],
   ]
 }
 

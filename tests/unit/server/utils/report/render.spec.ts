@@ -3,7 +3,8 @@ import { existsSync, mkdtempSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
-import { formatQuantity, formatSci } from '#shared/utils/format'
+import { formatDistance } from '#shared/format/case-rows'
+import { formatEstimate } from '#shared/utils/format'
 import { GENESIS_HASH, checkChain, eventHash } from '../../../../../server/db/event-chain'
 import { CONDENSER_WAKE } from '../../../../../server/db/seed-demo'
 import { adviceRecord, overrideRecord } from '../../../../../server/utils/decisions/record'
@@ -22,7 +23,7 @@ describe('markdownToPlain', () => {
 
 /** A decision state built the way the server builds one: engine advice, an override, chained events. */
 function overriddenCondenser(text: { title?: string; comment?: string; author?: string } = {}): DecisionReportData {
-  const record = adviceRecord(CONDENSER_WAKE)
+  const record = adviceRecord({ caseInput: CONDENSER_WAKE })
   const firstFired = record.advice.trace.find(t => t.fired)!.rule
   const { override } = overrideRecord(
     { caseInput: record.caseInput, advice: record.advice },
@@ -48,6 +49,7 @@ function overriddenCondenser(text: { title?: string; comment?: string; author?: 
     decision: {
       id: 7, projectId: 3, title: text.title ?? 'Condenser wake and tonal noise', status: 'overridden', version: 3, revision: 1,
       caseInput: record.caseInput, advice: record.advice, notes: null,
+      unitSystem: record.unitSystem, entered: record.entered, requested: null, changesRequestedBy: null,
       author: { id: 1, name: 'Ada Ferreira', email: 'engineer@eddyledger.test' },
       override, supersedesId: null, supersededById: null, createdAt: at(0), updatedAt: at(30),
     },
@@ -72,7 +74,7 @@ describe('renderDecisionReport', () => {
     expect(a.equals(b)).toBe(true)
     const later = await renderDecisionReport(data, { generatedAt: new Date(generatedAt.getTime() + 60_000) })
     expect(later.equals(a)).toBe(false)
-  })
+  }, 30_000) // three renders with embedded fonts: seconds each on a busy shared machine
 
   it.runIf(existsSync('/usr/bin/pdftotext'))('writes the engine figures in significant figures and scientific notation', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'eddy-report-'))
@@ -81,8 +83,11 @@ describe('renderDecisionReport', () => {
     const text = execFileSync('/usr/bin/pdftotext', ['-layout', file, '-'], { encoding: 'utf8' })
     const first = data.decision.advice.approaches[0]!
     const squeeze = (t: string) => t.replace(/\s+/g, '')
-    expect(squeeze(text)).toContain(squeeze(formatSci(first.cells)))
-    expect(squeeze(text)).toContain(squeeze(formatQuantity(data.decision.override!.wall.firstCellHeight, 'm')))
+    // The cost model's estimates to two figures, the near-wall mesh in the case's own units (mm in SI).
+    expect(squeeze(text)).toContain(squeeze(formatEstimate(first.cells)))
+    expect(squeeze(text)).toContain(squeeze(formatDistance(data.decision.override!.wall.firstCellHeight, 'si')))
+    // The override's own cost beside the engine's.
+    expect(squeeze(text)).toContain(squeeze(`Core-hours ${formatEstimate(data.decision.advice.approaches.find(a => a.id === data.decision.advice.recommendation.approach)!.coreHours)} ${formatEstimate(data.decision.override!.cost!.coreHours)}`))
     expect(text).toMatch(/page 1 of \d/)
     expect(text).toContain('Chain intact: 3 events')
   })
