@@ -11,7 +11,10 @@ export interface GuidanceArticle {
 }
 
 // The order an engineer reads them in: most resolved to most modelled, then the walls.
-const ORDER = ['dns', 'wrles', 'wmles', 'hybrid', 'urans', 'rans', 'resolved', 'wall-function', 'wall-model']
+const ORDER = [
+  'dns', 'wrles', 'wmles', 'hybrid', 'urans', 'rans', 'laminar',
+  'resolved', 'blended', 'wall-function', 'rough-wall-function', 'wall-model',
+]
 
 function parse(path: string, raw: string): GuidanceArticle {
   const slug = path.split('/').pop()!.replace(/\.md$/, '')

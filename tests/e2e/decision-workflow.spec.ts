@@ -204,9 +204,9 @@ test('the author revises a draft; a second tab with the old version gets a clear
 test('the guidance articles: one per approach and wall treatment, each with cautions and sources', async ({ page }) => {
   await signInAs(page, 'auditor')
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Guidance' }).click()
-  await expect(page.getByTestId('guidance-approaches').getByRole('link')).toHaveCount(6)
-  await expect(page.getByTestId('guidance-walls').getByRole('link')).toHaveCount(3)
-  for (const slug of ['dns', 'wrles', 'wmles', 'hybrid', 'urans', 'rans', 'resolved', 'wall-function', 'wall-model']) {
+  await expect(page.getByTestId('guidance-approaches').getByRole('link')).toHaveCount(7)
+  await expect(page.getByTestId('guidance-walls').getByRole('link')).toHaveCount(5)
+  for (const slug of ['dns', 'wrles', 'wmles', 'hybrid', 'urans', 'rans', 'laminar', 'resolved', 'blended', 'wall-function', 'rough-wall-function', 'wall-model']) {
     await page.goto(`/guidance/${slug}`)
     const article = page.getByTestId('guidance-article')
     await expect(article.getByRole('heading', { name: 'Cautions' })).toBeVisible()

@@ -1,4 +1,5 @@
 import nodemailer, { type Transporter } from 'nodemailer'
+import { CAUTION_SUMMARY } from '#shared/rules/cautions'
 import { notFound } from '../http/errors'
 import { and, desc, eq, sql } from 'drizzle-orm'
 import type { DbOrTx } from '../../db/types'
@@ -12,9 +13,7 @@ import { tables, useDb } from '../db'
 export type MailKind = 'submitted' | 'approved' | 'overridden' | 'changes_requested' | 'invite' | 'reset' | 'wall_check' | 'wall_check_reviewed'
 
 /** The closing line of every message: the same cautions every page carries. */
-export const MAIL_CAUTIONS = "Eddyledger's figures are order-of-magnitude estimates to guide a modelling decision, not results. "
-  + "Verify y+ and mesh adequacy on the real solution; defer to your organisation's procedures, the applicable "
-  + 'local codes and licensed engineering practice.'
+export const MAIL_CAUTIONS = CAUTION_SUMMARY
 
 // Retry schedule: 30 s, 1 min, 2 min ... capped at an hour; after MAX_ATTEMPTS the row is 'failed'
 // until an admin retries it.

@@ -12,7 +12,6 @@ export const approachLabel = (id: string) => APPROACH_LABELS[id as ApproachId] ?
 export const treatmentLabel = (id: string) => WALL_TREATMENT_LABELS[id as WallTreatment] ?? id
 
 /** One line for the footer of every page: the general cautions in brief. */
-export const FOOTER_CAUTION = "Order-of-magnitude estimates for planning; verify y+ on the real solution. Your organisation's procedures, local codes and licensed engineering practice take precedence."
 
 /** The case as the engineer typed it, in its units (the rows the decision page shows), then the figures the engine derived. */
 export function caseRows(data: DecisionReportData): [string, string][] {

@@ -104,5 +104,5 @@ describe('renderDecisionReport', () => {
     const text = execFileSync('/usr/bin/pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ')
     for (const words of Object.values(typed)) expect(text).toContain(words)
     expect(text).not.toContain('?')
-  })
+  }, 30_000)
 })
