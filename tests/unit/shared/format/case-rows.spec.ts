@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { advise } from '../../../../shared/rules'
-import { caseRows, revisionDiff, type RevisionForDiff } from '../../../../shared/format/case-rows'
-import { defaultCaseFormValues, enteredOf, inUnitSystem, validateCaseForm, type CaseFormValues } from '../../../../shared/schemas/case-form'
-import type { UnitSystem } from '../../../../shared/units'
+import { advise } from '#shared/rules'
+import { caseRows, revisionDiff, type RevisionForDiff } from '#shared/format/case-rows'
+import { defaultCaseFormValues, enteredOf, inUnitSystem, validateCaseForm, type CaseFormValues } from '#shared/schemas/case-form'
+import type { UnitSystem } from '#shared/units'
 
 function revision(values: CaseFormValues, unitSystem: UnitSystem): RevisionForDiff {
   const checked = validateCaseForm(values)

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { parseNumber } from '../../../../shared/format/parse'
+import { parseNumber } from '#shared/format/parse'
 
 // Strict reading of typed numbers (our own rules, common practice, no source).
 describe('parseNumber', () => {

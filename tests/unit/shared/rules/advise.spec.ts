@@ -1,10 +1,7 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { ZodError } from 'zod'
-import type {
-  APPROACH_IDS,
-  Advice,
-  CaseInputDraft} from '../../../../shared/rules/index';
+import type { APPROACH_IDS, Advice, CaseInputDraft } from '#shared/rules/index'
 import {
   TURBULENCE_APPROACH_IDS,
   ENGINE_VERSION,
@@ -14,7 +11,7 @@ import {
   advise,
   caseInputSchema,
   wallFor,
-} from '../../../../shared/rules/index'
+} from '#shared/rules/index'
 import { nonFiniteNumbers, validCase } from './arbitraries'
 
 /** Air at 20 C: nu is about 1.506e-5 m2/s, so U L = 1.506e-5 Re. */

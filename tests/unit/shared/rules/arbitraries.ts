@@ -1,7 +1,7 @@
 /** fast-check generators of valid Eddyledger cases (test fixtures of ours). */
 import fc from 'fast-check'
-import type { CaseInputDraft } from '../../../../shared/rules/case-input'
-import { APPLICATIONS, QUANTITIES } from '../../../../shared/rules/case-input'
+import type { CaseInputDraft } from '#shared/rules/case-input'
+import { APPLICATIONS, QUANTITIES } from '#shared/rules/case-input'
 
 const logUniform = (minExponent: number, maxExponent: number) =>
   fc.double({ min: minExponent, max: maxExponent, noNaN: true }).map((exponent) => 10 ** exponent)

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { advise } from '../../../../shared/rules/index'
+import { advise } from '#shared/rules/index'
 import { CANONICAL_CASES } from './canonical-cases'
 
 // Each case names the approach its published study used and the citation (see canonical-cases.ts).

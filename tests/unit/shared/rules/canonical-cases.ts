@@ -4,7 +4,7 @@
  * Velocities are set from the published Reynolds number with air at 20 °C (nu = 1.506e-5 m2/s) or
  * water at 20 °C (nu = 1.004e-6 m2/s).
  */
-import type { ApproachId, CaseInputDraft, WallTreatment } from '../../../../shared/rules/index'
+import type { ApproachId, CaseInputDraft, WallTreatment } from '#shared/rules/index'
 
 const AIR_NU = 1.506e-5
 const WATER_NU = 1.004e-6

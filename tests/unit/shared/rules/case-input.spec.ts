@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { ZodError } from 'zod'
-import { caseInputSchema, parseCaseInput, type CaseInputDraft } from '../../../../shared/rules/case-input'
+import { caseInputSchema, parseCaseInput, type CaseInputDraft } from '#shared/rules/case-input'
 
 const valid: CaseInputDraft = {
   regime: 'internal',

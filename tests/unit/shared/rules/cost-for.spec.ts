@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { advise, costFor, wallFor, type CaseInputDraft } from '../../../../shared/rules/index'
+import { advise, costFor, wallFor, type CaseInputDraft } from '#shared/rules/index'
 
 const input: CaseInputDraft = {
   regime: 'external',

@@ -1,20 +1,20 @@
 import { describe, expect, it } from 'vitest'
-import { caseInputSchema, type CaseInput, type CaseInputDraft } from '../../../../shared/rules/case-input'
-import { costCaseFor } from '../../../../shared/rules/cost-case'
+import { caseInputSchema, type CaseInput, type CaseInputDraft } from '#shared/rules/case-input'
+import { costCaseFor } from '#shared/rules/cost-case'
 import {
   RANS_CORE_SECONDS_PER_CELL_ITERATION,
   UNCERTAINTY,
   approachCost,
   bounded,
   coreSecondsPerCellStep,
-} from '../../../../shared/rules/cost-model'
-import { flowPhysics } from '../../../../shared/rules/flow-physics'
+} from '#shared/rules/cost-model'
+import { flowPhysics } from '#shared/rules/flow-physics'
 import {
   DNS_MEAN_WALL_NORMAL_SPACING_PLUS,
   DNS_SPANWISE_SPACING_PLUS,
   DNS_STREAMWISE_SPACING_PLUS,
-} from '../../../../shared/rules/mesh-resolving'
-import { APPROACH_IDS, type ApproachId, type WallTreatment } from '../../../../shared/rules/approaches'
+} from '#shared/rules/mesh-resolving'
+import { APPROACH_IDS, type ApproachId, type WallTreatment } from '#shared/rules/approaches'
 
 /** A custom fluid with nu = 1e-5 m2/s and L = 1 m, so Re = U / 1e-5. */
 function caseAt(reynolds: number, overrides: Partial<CaseInputDraft> = {}): CaseInput {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { APPROACH_IDS, advise, costSweep, type CaseInputDraft } from '../../../../shared/rules/index'
+import { APPROACH_IDS, advise, costSweep, type CaseInputDraft } from '#shared/rules/index'
 
 const input: CaseInputDraft = {
   regime: 'external',

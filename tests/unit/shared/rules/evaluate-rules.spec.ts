@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest'
-import { advise } from '../../../../shared/rules/advise'
-import { conditionHolds, evaluateRule, evaluateStage } from '../../../../shared/rules/evaluate-rules'
-import type { Facts } from '../../../../shared/rules/facts'
-import { RULESET } from '../../../../shared/rules/ruleset'
-import type { Rule } from '../../../../shared/rules/ruleset-schema'
+import { advise } from '#shared/rules/advise'
+import { conditionHolds, evaluateRule, evaluateStage } from '#shared/rules/evaluate-rules'
+import type { Facts } from '#shared/rules/facts'
+import { RULESET } from '#shared/rules/ruleset'
+import type { Rule } from '#shared/rules/ruleset-schema'
 
 const perApproach = <T>(value: T) => ({ dns: value, wrles: value, wmles: value, hybrid: value, urans: value, rans: value, laminar: value })
 

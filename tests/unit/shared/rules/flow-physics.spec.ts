@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { caseInputSchema } from '../../../../shared/rules/case-input'
-import { flowPhysics, kolmogorovCells, kolmogorovLength, reynoldsNumber } from '../../../../shared/rules/flow-physics'
+import { caseInputSchema } from '#shared/rules/case-input'
+import { flowPhysics, kolmogorovCells, kolmogorovLength, reynoldsNumber } from '#shared/rules/flow-physics'
 
 const relative = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected)
 

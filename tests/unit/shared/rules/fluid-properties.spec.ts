@@ -10,7 +10,7 @@ import {
   fluidState,
   waterDensity,
   waterViscosityIapws,
-} from '../../../../shared/rules/fluid-properties'
+} from '#shared/rules/fluid-properties'
 
 const relative = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected)
 

@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { formatEstimate, formatNumber, formatScoreChange, roundToBand } from '../../../../shared/rules/format'
+import { formatEstimate, formatNumber, formatScoreChange, roundToBand } from '#shared/rules/format'
 
 describe('formatNumber', () => {
   it.each([

@@ -14,7 +14,7 @@ import {
   wallDistance,
   wallShearStress,
   yPlusTargetFor,
-} from '../../../../shared/rules/near-wall'
+} from '#shared/rules/near-wall'
 
 const relative = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected)
 

@@ -1,11 +1,11 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { WALL_TREATMENTS_BY_APPROACH, type ApproachId } from '../../../../shared/rules/approaches'
-import { advise } from '../../../../shared/rules/advise'
-import { caseInputSchema, type CaseInputDraft } from '../../../../shared/rules/case-input'
-import { costCaseFor } from '../../../../shared/rules/cost-case'
-import { approachCost } from '../../../../shared/rules/cost-model'
-import { flowPhysics } from '../../../../shared/rules/flow-physics'
+import { WALL_TREATMENTS_BY_APPROACH, type ApproachId } from '#shared/rules/approaches'
+import { advise } from '#shared/rules/advise'
+import { caseInputSchema, type CaseInputDraft } from '#shared/rules/case-input'
+import { costCaseFor } from '#shared/rules/cost-case'
+import { approachCost } from '#shared/rules/cost-model'
+import { flowPhysics } from '#shared/rules/flow-physics'
 import { nonFiniteNumbers, validCase } from './arbitraries'
 
 // Properties the cost model and the ranking must keep (our requirements, no source).

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { advise } from '../../../../shared/rules/index'
-import { BUFFET_STROUHAL, STROUHAL, classifyRegime, machRegime, sheddingStrouhal } from '../../../../shared/rules/regime'
+import { advise } from '#shared/rules/index'
+import { BUFFET_STROUHAL, STROUHAL, classifyRegime, machRegime, sheddingStrouhal } from '#shared/rules/regime'
 
 const pipe = { regime: 'internal' as const, geometry: 'duct' as const, separation: 'none' as const }
 const plate = { regime: 'external' as const, geometry: 'streamlined' as const, separation: 'none' as const }

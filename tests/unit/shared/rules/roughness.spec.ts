@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest'
-import { advise } from '../../../../shared/rules/index'
+import { advise } from '#shared/rules/index'
 import {
   FULLY_ROUGH_LOG_LAW_CONSTANT,
   roughnessLogLawShift,
   roughnessRegime,
   roughnessReynolds,
   sandGrainFromRoughnessLength,
-} from '../../../../shared/rules/roughness'
-import { colebrookFriction, fullyRoughPlateSkinFriction, roughPlateSkinFriction, schlichtingSkinFriction } from '../../../../shared/rules/skin-friction'
+} from '#shared/rules/roughness'
+import { colebrookFriction, fullyRoughPlateSkinFriction, roughPlateSkinFriction, schlichtingSkinFriction } from '#shared/rules/skin-friction'
 
 const relative = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected)
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { RULESET, advise, type CaseInputDraft } from '../../../../shared/rules/index'
+import { RULESET, advise, type CaseInputDraft } from '#shared/rules/index'
 
 // One rule, one test: for every rule of the ruleset a case that fires it and one that does not.
 // Each test names the rule's own source (printed from the ruleset), as the rule itself does.

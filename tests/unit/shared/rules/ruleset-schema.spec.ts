@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { RULESET } from '../../../../shared/rules/ruleset'
-import { logicProblems, rulesetSchema } from '../../../../shared/rules/ruleset-schema'
+import { RULESET } from '#shared/rules/ruleset'
+import { logicProblems, rulesetSchema } from '#shared/rules/ruleset-schema'
 
 const minimalRule = {
   id: 'example-rule',

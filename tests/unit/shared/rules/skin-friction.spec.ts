@@ -10,7 +10,7 @@ import {
   pipeDarcyFriction,
   pipeSkinFriction,
   schlichtingSkinFriction,
-} from '../../../../shared/rules/skin-friction'
+} from '#shared/rules/skin-friction'
 
 const relative = (actual: number, expected: number) => Math.abs(actual - expected) / Math.abs(expected)
 

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest'
-import { caseInputSchema, type CaseInputDraft } from '../../../../shared/rules/case-input'
-import { costCaseFor } from '../../../../shared/rules/cost-case'
-import { approachCost } from '../../../../shared/rules/cost-model'
-import { flowPhysics } from '../../../../shared/rules/flow-physics'
-import { AVERAGING, RESOLVING_CFL, TRANSIENT, URANS_INNER_ITERATIONS, unsteadyPlan } from '../../../../shared/rules/time-model'
-import type { ApproachId, WallTreatment } from '../../../../shared/rules/approaches'
+import { caseInputSchema, type CaseInputDraft } from '#shared/rules/case-input'
+import { costCaseFor } from '#shared/rules/cost-case'
+import { approachCost } from '#shared/rules/cost-model'
+import { flowPhysics } from '#shared/rules/flow-physics'
+import { AVERAGING, RESOLVING_CFL, TRANSIENT, URANS_INNER_ITERATIONS, unsteadyPlan } from '#shared/rules/time-model'
+import type { ApproachId, WallTreatment } from '#shared/rules/approaches'
 
 const budget = { coreHours: 1e5, cores: 1024, wallClockHours: 500 }
 

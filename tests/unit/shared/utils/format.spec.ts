@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import {
   FIGURES, formatDateTime, formatDuration, formatEstimate, formatInput, formatNumber, formatPercent, formatPlain, formatQuantity, formatSci, formatSig,
-} from '../../../../shared/utils/format'
+} from '#shared/utils/format'
 
 // Presentation rules of our own (common practice, no source): one notation for every figure,
 // significant figures by how well a number is known, a unit beside every value.
