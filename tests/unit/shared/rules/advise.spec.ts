@@ -2,7 +2,6 @@ import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { ZodError } from 'zod'
 import {
-  APPROACH_IDS,
   TURBULENCE_APPROACH_IDS,
   ENGINE_VERSION,
   GENERAL_CAUTIONS,
@@ -12,6 +11,7 @@ import {
   caseInputSchema,
   wallFor,
   type Advice,
+  type ApproachId,
   type CaseInputDraft,
 } from '../../../../shared/rules/index'
 import { nonFiniteNumbers, validCase } from './arbitraries'
@@ -35,8 +35,8 @@ function externalAir(reynolds: number, overrides: Partial<CaseInputDraft> = {}):
   }
 }
 
-const approach = (advice: Advice, id: (typeof APPROACH_IDS)[number]) => advice.approaches.find((entry) => entry.id === id)!
-const rank = (advice: Advice, id: (typeof APPROACH_IDS)[number]) => advice.approaches.findIndex((entry) => entry.id === id)
+const approach = (advice: Advice, id: ApproachId) => advice.approaches.find((entry) => entry.id === id)!
+const rank = (advice: Advice, id: ApproachId) => advice.approaches.findIndex((entry) => entry.id === id)
 
 describe('behaviours of the advice', () => {
   it('attached streamlined external flow at Re = 1e7, forces, modest budget: steady RANS with SA or SST (Spalart & Allmaras 1992; Menter 1994; Rumsey & Jeyapaul 2012)', () => {
