@@ -1,7 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { ZodError } from 'zod'
-import type { APPROACH_IDS, Advice, CaseInputDraft } from '#shared/rules/index'
 import {
   TURBULENCE_APPROACH_IDS,
   ENGINE_VERSION,
@@ -11,8 +10,14 @@ import {
   advise,
   caseInputSchema,
   wallFor,
+  type Advice,
+  type ApproachId,
+  type CaseInputDraft,
 } from '#shared/rules/index'
 import { nonFiniteNumbers, validCase } from './arbitraries'
+
+/** fast-check properties run many cases; on a shared machine they take longer than the default 5 s. */
+const PROPERTY_TIMEOUT = 60_000
 
 /** Air at 20 C: nu is about 1.506e-5 m2/s, so U L = 1.506e-5 Re. */
 const AIR_NU = 1.506e-5
@@ -33,8 +38,8 @@ function externalAir(reynolds: number, overrides: Partial<CaseInputDraft> = {}):
   }
 }
 
-const approach = (advice: Advice, id: (typeof APPROACH_IDS)[number]) => advice.approaches.find((entry) => entry.id === id)!
-const rank = (advice: Advice, id: (typeof APPROACH_IDS)[number]) => advice.approaches.findIndex((entry) => entry.id === id)
+const approach = (advice: Advice, id: ApproachId) => advice.approaches.find((entry) => entry.id === id)!
+const rank = (advice: Advice, id: ApproachId) => advice.approaches.findIndex((entry) => entry.id === id)
 
 describe('behaviours of the advice', () => {
   it('attached streamlined external flow at Re = 1e7, forces, modest budget: steady RANS with SA or SST (Spalart & Allmaras 1992; Menter 1994; Rumsey & Jeyapaul 2012)', () => {
@@ -101,7 +106,7 @@ describe('behaviours of the advice', () => {
       ),
       { numRuns: 40 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 
   it('heat transfer: no wall functions anywhere, the wall resolved at y+ <= 1, even where wall functions would otherwise be chosen (ERCOFTAC Best Practice Guidelines, from memory)', () => {
     for (const physics of [{ heatTransfer: true }, {}]) {
@@ -205,7 +210,7 @@ describe('the advice is explained and reproducible', () => {
       }),
       { numRuns: 60 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 
   it('sorts approaches by score, lists the six turbulence approaches for a turbulent flow, and names ruleset and engine versions', () => {
     expect(advice.approaches.map((entry) => entry.id).sort()).toEqual([...TURBULENCE_APPROACH_IDS].sort())
@@ -244,7 +249,7 @@ describe('properties over valid cases (fast-check)', () => {
       }),
       { numRuns: 150 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 
   it('DNS, WRLES and WMLES cells grow with Re (the velocity) (Choi & Moin 2012)', () => {
     fc.assert(
@@ -261,7 +266,7 @@ describe('properties over valid cases (fast-check)', () => {
       }),
       { numRuns: 60 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 
   it('the first-cell height falls as velocity rises below Mach 0.3, for a fixed target y+ or a fixed wall treatment (law of the wall: y = y+ nu / u_tau; above, wall heating raises nu)', () => {
     fc.assert(
@@ -283,7 +288,7 @@ describe('properties over valid cases (fast-check)', () => {
       ),
       { numRuns: 60 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 })
 
 describe('wallFor, the reviewer override', () => {

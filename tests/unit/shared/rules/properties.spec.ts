@@ -8,6 +8,9 @@ import { approachCost } from '#shared/rules/cost-model'
 import { flowPhysics } from '#shared/rules/flow-physics'
 import { nonFiniteNumbers, validCase } from './arbitraries'
 
+/** fast-check properties run many cases; on a shared machine they take longer than the default 5 s. */
+const PROPERTY_TIMEOUT = 60_000
+
 // Properties the cost model and the ranking must keep (our requirements, no source).
 
 const MODELLED: readonly ApproachId[] = ['hybrid', 'urans', 'rans', 'laminar']
@@ -57,7 +60,7 @@ describe('cost properties over valid cases (fast-check)', () => {
       ),
       { numRuns: 400 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 
   it('for the same case DNS >= wall-resolved LES >= wall-modelled LES, in cells and in core-hours', () => {
     fc.assert(
@@ -72,7 +75,7 @@ describe('cost properties over valid cases (fast-check)', () => {
       }),
       { numRuns: 300 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 
   it('URANS never costs fewer core-hours than steady RANS with the same wall treatment', () => {
     fc.assert(
@@ -81,7 +84,7 @@ describe('cost properties over valid cases (fast-check)', () => {
       }),
       { numRuns: 300 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 
   it('every modelled approach reports its layers and every unsteady one its time step, simulated time and flow-throughs', () => {
     fc.assert(
@@ -96,7 +99,7 @@ describe('cost properties over valid cases (fast-check)', () => {
       }),
       { numRuns: 100 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 })
 
 describe('advice properties over valid cases (fast-check)', () => {
@@ -112,7 +115,7 @@ describe('advice properties over valid cases (fast-check)', () => {
       }),
       { numRuns: 200 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 
   it('never returns NaN or Infinity, lists the six turbulence approaches (and a laminar solution only for laminar or transitional flow), and gives every cost its range', () => {
     fc.assert(
@@ -129,7 +132,7 @@ describe('advice properties over valid cases (fast-check)', () => {
       }),
       { numRuns: 200 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 
   it('the budget statement is consistent: fits when the top-scored fits, otherwise the recommendation is the best that fits, or the top when none does', () => {
     fc.assert(
@@ -151,5 +154,5 @@ describe('advice properties over valid cases (fast-check)', () => {
       }),
       { numRuns: 150 },
     )
-  })
+  }, PROPERTY_TIMEOUT)
 })
