@@ -4,8 +4,10 @@
  * a logarithmic axis. Built to accumulate row by row, so a large export is never held in memory.
  * Relative imports only: the server, the browser and plain Node use it.
  */
-import type { WallTreatment } from '../rules/approaches'
-import { RESOLVED_Y_PLUS, WALL_FUNCTION_Y_PLUS_BAND, WALL_MODEL_MIN_Y_PLUS, yPlusTargetFor } from '../rules/near-wall'
+import type { ApproachId, WallTreatment } from '../rules/approaches'
+import {
+  BLENDED_Y_PLUS_BAND, RESOLVED_Y_PLUS, WALL_FUNCTION_Y_PLUS_BAND, laminarYPlusTarget, yPlusTargetFor,
+} from '../rules/near-wall'
 
 export type BandBasis = WallTreatment | 'target'
 
@@ -17,49 +19,66 @@ export interface YPlusBand {
   label: string
 }
 
-/** A reviewer's or engineer's own y+ target is met within a factor of two either way (common practice, no source). */
+/** A target is met within a factor of two either way (common practice, no source). */
 export const OWN_TARGET_FACTOR = 2
-/** The top of the log layer a wall model may match in, as a fraction of delta (textbook: 0.1-0.2 delta; Kawai & Larsson 2012 place the matching point there). */
-export const WALL_MODEL_TOP_FRACTION = 0.2
 /** A team's default share of wall area inside the band for a check to pass (common practice, no source). */
 export const DEFAULT_PASS_FRACTION = 0.9
 
+export interface SignedOffWall {
+  approach: ApproachId
+  wallTreatment: WallTreatment
+  yPlusTarget: number
+  deltaPlus: number
+  /** k_s+ of a rough wall, null or 0 when smooth */
+  roughnessPlus?: number | null
+}
+
+/** The first-cell y+ the engine itself aims at for this approach and treatment. */
+function engineTarget(signed: SignedOffWall) {
+  if (signed.approach === 'laminar') return laminarYPlusTarget(signed.deltaPlus)
+  return yPlusTargetFor(signed.wallTreatment, signed.deltaPlus, signed.approach, signed.roughnessPlus ?? 0)
+}
+
+function aroundTarget(t: number, basis: BandBasis, label: string): YPlusBand {
+  return { min: t / OWN_TARGET_FACTOR, max: t * OWN_TARGET_FACTOR, basis, label }
+}
+
 /**
  * The band of first-cell y+ that the signed-off treatment asks for. A target that differs from the
- * treatment's own (an engineer's input or a reviewer's override) gives a band about that target.
+ * engine's own (an engineer's input or a reviewer's override) gives a band about that target.
  */
-export function bandFor(signed: { wallTreatment: WallTreatment; yPlusTarget: number; deltaPlus: number }): YPlusBand {
-  const own = yPlusTargetFor(signed.wallTreatment, signed.deltaPlus)
+export function bandFor(signed: SignedOffWall): YPlusBand {
   const t = signed.yPlusTarget
-  const isOwnTarget = Math.abs(t - own) > 1e-9 * Math.max(1, own)
-  if (isOwnTarget) {
+  const own = engineTarget(signed)
+  if (Math.abs(t - own) > 1e-9 * Math.max(1, own)) {
     if (signed.wallTreatment === 'resolved') {
       return { min: 0, max: t, basis: 'target', label: `Signed-off target: first-cell y+ at or below ${fmt(t)} on a resolved wall` }
     }
-    return {
-      min: t / OWN_TARGET_FACTOR,
-      max: t * OWN_TARGET_FACTOR,
-      basis: 'target',
-      label: `Signed-off target y+ = ${fmt(t)}, within a factor of ${OWN_TARGET_FACTOR} either way (common practice, no source)`,
+    return aroundTarget(t, 'target', `Signed-off target y+ = ${fmt(t)}, within a factor of ${OWN_TARGET_FACTOR} either way (common practice, no source)`)
+  }
+  switch (signed.wallTreatment) {
+    case 'resolved':
+      return { min: 0, max: RESOLVED_Y_PLUS, basis: 'resolved', label: `Resolved viscous sublayer: first-cell y+ at or below ${RESOLVED_Y_PLUS} (common practice; Georgiadis et al. 2010 for LES and DNS)` }
+    case 'wall-function':
+      return {
+        min: WALL_FUNCTION_Y_PLUS_BAND.min, max: WALL_FUNCTION_Y_PLUS_BAND.max, basis: 'wall-function',
+        label: `Log-law wall functions (Launder & Spalding 1974): first-cell y+ from ${WALL_FUNCTION_Y_PLUS_BAND.min} to ${WALL_FUNCTION_Y_PLUS_BAND.max} (common practice)`,
+      }
+    case 'rough-wall-function': {
+      const min = Math.max(WALL_FUNCTION_Y_PLUS_BAND.min, signed.roughnessPlus ?? 0)
+      const max = Math.max(WALL_FUNCTION_Y_PLUS_BAND.max, OWN_TARGET_FACTOR * min)
+      return {
+        min, max, basis: 'rough-wall-function',
+        label: `Rough-wall log-law functions: first-cell y+ from ${fmt(min)} (above the roughness, y+ ≥ k_s+; Blocken et al. 2007) to ${fmt(max)}`,
+      }
     }
-  }
-  if (signed.wallTreatment === 'resolved') {
-    return { min: 0, max: RESOLVED_Y_PLUS, basis: 'resolved', label: `Resolved viscous sublayer: first-cell y+ at or below ${RESOLVED_Y_PLUS} (common practice; Georgiadis et al. 2010 for LES)` }
-  }
-  if (signed.wallTreatment === 'wall-function') {
-    return {
-      min: WALL_FUNCTION_Y_PLUS_BAND.min,
-      max: WALL_FUNCTION_Y_PLUS_BAND.max,
-      basis: 'wall-function',
-      label: `Log-law wall functions (Launder & Spalding 1974): first-cell y+ from ${WALL_FUNCTION_Y_PLUS_BAND.min} to ${WALL_FUNCTION_Y_PLUS_BAND.max} (common practice)`,
-    }
-  }
-  const top = Math.max(WALL_MODEL_TOP_FRACTION * signed.deltaPlus, OWN_TARGET_FACTOR * t)
-  return {
-    min: WALL_MODEL_MIN_Y_PLUS,
-    max: top,
-    basis: 'wall-model',
-    label: `Equilibrium wall model: first-cell y+ in the log layer, from ${WALL_MODEL_MIN_Y_PLUS} to ${fmt(top)} (about ${WALL_MODEL_TOP_FRACTION} δ+; Kawai & Larsson 2012)`,
+    case 'blended':
+      return {
+        min: BLENDED_Y_PLUS_BAND.min, max: BLENDED_Y_PLUS_BAND.max, basis: 'blended',
+        label: `Blended wall treatment (Popovac & Hanjalić 2007): first-cell y+ from ${BLENDED_Y_PLUS_BAND.min} to ${BLENDED_Y_PLUS_BAND.max} (the engine's band; our choice)`,
+      }
+    case 'wall-model':
+      return aroundTarget(t, 'wall-model', `Wall-modelled LES: cells of about δ/20 at the wall (Larsson et al. 2016), first-cell y+ ≈ ${fmt(t)}, within a factor of ${OWN_TARGET_FACTOR} either way (common practice, no source)`)
   }
 }
 

@@ -2,7 +2,9 @@ import { readFile } from 'node:fs/promises'
 import { expect, test } from '@playwright/test'
 import { gotoHydrated, keepScreenshot, signInAs } from '../support/e2e'
 
-const CSV_HEADER = 'decision id,project,title,status,author,revisions,events,chain valid,chain broken at event,last hash,engine version,ruleset version'
+const CSV_HEADER = 'decision id,project,title,status,author,revisions,events,chain valid,chain broken at event,last hash,engine version,ruleset version,'
+  + 'wall checks,latest wall check in band,latest wall check verdict,latest wall check review,latest wall check sha256,'
+  + 'grid studies,latest fine-grid GCI,CPU runs,actual core-hours,estimated core-hours of the runs,retracted records'
 
 test('the team lead reads the overview: figures, the method chart, the project table and a project filter', async ({ page }) => {
   await signInAs(page, 'lead')

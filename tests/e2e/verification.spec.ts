@@ -12,7 +12,7 @@ const FERRY_CASE = {
 
 test('an engineer uploads the wall y+ export, sees the histogram and verdict, and a reviewer accepts it', async ({ page }) => {
   // Four sign-ins and a cold first render of the decision page: more than the default minute.
-  test.setTimeout(120_000)
+  test.setTimeout(180_000)
   const title = `Hull wall y+ after the run ${Date.now().toString(36)}`
   await signInAs(page, 'engineer')
   const projects = (await (await page.request.get('/api/projects')).json()).projects as { id: number; code: string }[]

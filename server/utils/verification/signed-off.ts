@@ -11,8 +11,8 @@ export async function signedOffChoice(decisionId: number, db: DbOrTx = useDb()) 
   const decision = await readDecision(decisionId, db)
   const o = decision.override
   const choice = o
-    ? { approach: o.approach as ApproachId, model: o.model, wallTreatment: o.wallTreatment as WallTreatment, yPlusTarget: o.yPlusTarget, deltaPlus: o.wall.deltaPlus, by: 'override' as const }
-    : { ...decision.advice.recommendation, deltaPlus: decision.advice.wall.deltaPlus, by: 'recommendation' as const }
+    ? { approach: o.approach as ApproachId, model: o.model, wallTreatment: o.wallTreatment as WallTreatment, yPlusTarget: o.yPlusTarget, deltaPlus: o.wall.deltaPlus, roughnessPlus: o.wall.roughnessPlus ?? null, by: 'override' as const }
+    : { ...decision.advice.recommendation, deltaPlus: decision.advice.wall.deltaPlus, roughnessPlus: decision.advice.wall.roughnessPlus ?? null, by: 'recommendation' as const }
   return { decision, choice }
 }
 

@@ -5,25 +5,35 @@ import { WallTally, bandFor, guessColumns, looksLikeData, parseArea, parseYPlus,
 describe('the band of a signed-off wall treatment', () => {
   it('is 30 to 300 for log-law wall functions at their own target', () => {
     // Launder & Spalding 1974 wall functions, first cell in the log layer, 30 <= y+ <= 300 (common practice).
-    const band = bandFor({ wallTreatment: 'wall-function', yPlusTarget: yPlusTargetFor('wall-function', 5000), deltaPlus: 5000 })
+    const band = bandFor({ approach: 'rans', wallTreatment: 'wall-function', yPlusTarget: yPlusTargetFor('wall-function', 5000), deltaPlus: 5000 })
     expect([band.min, band.max, band.basis]).toEqual([30, 300, 'wall-function'])
   })
 
   it('is y+ at or below 1 for a resolved wall', () => {
     // First cell at y+ about 1 or below (common practice; Georgiadis et al. 2010 for LES).
-    const band = bandFor({ wallTreatment: 'resolved', yPlusTarget: 1, deltaPlus: 2000 })
+    const band = bandFor({ approach: 'rans', wallTreatment: 'resolved', yPlusTarget: 1, deltaPlus: 2000 })
     expect([band.min, band.max]).toEqual([0, 1])
+    // Wall-resolved LES aims lower (y+ = 0.5) but is judged on the same y+ <= 1 (Georgiadis et al. 2010).
+    const les = bandFor({ approach: 'wrles', wallTreatment: 'resolved', yPlusTarget: yPlusTargetFor('resolved', 2000, 'wrles'), deltaPlus: 2000 })
+    expect([les.min, les.max, les.basis]).toEqual([0, 1, 'resolved'])
   })
 
-  it('spans the log layer for a wall model', () => {
-    // From y+ = 30 to 0.2 delta+ (log layer top 0.1-0.2 delta, textbook; Kawai & Larsson 2012).
-    const band = bandFor({ wallTreatment: 'wall-model', yPlusTarget: yPlusTargetFor('wall-model', 10_000), deltaPlus: 10_000 })
-    expect([band.min, band.max]).toEqual([30, 2000])
+  it('sits about delta+/40 for a wall model', () => {
+    // Cells of delta/20 at the wall (Larsson et al. 2016): first-cell y+ = 10000/40 = 250, within a
+    // factor of two (common practice, no source).
+    const band = bandFor({ approach: 'wmles', wallTreatment: 'wall-model', yPlusTarget: yPlusTargetFor('wall-model', 10_000, 'wmles'), deltaPlus: 10_000 })
+    expect([band.min, band.max, band.basis]).toEqual([125, 500, 'wall-model'])
+  })
+
+  it('keeps the first cell of a rough wall above the roughness', () => {
+    // y+ >= k_s+ for rough-wall functions (Blocken, Stathopoulos & Carmeliet 2007).
+    const band = bandFor({ approach: 'rans', wallTreatment: 'rough-wall-function', yPlusTarget: yPlusTargetFor('rough-wall-function', 5000, 'rans', 80), deltaPlus: 5000, roughnessPlus: 80 })
+    expect([band.min, band.max]).toEqual([80, 300])
   })
 
   it('follows a signed-off target of its own within a factor of two', () => {
     // A factor of two either way (common practice, no source).
-    const band = bandFor({ wallTreatment: 'wall-function', yPlusTarget: 50, deltaPlus: 5000 })
+    const band = bandFor({ approach: 'rans', wallTreatment: 'wall-function', yPlusTarget: 50, deltaPlus: 5000 })
     expect([band.min, band.max, band.basis]).toEqual([25, 100, 'target'])
   })
 })
