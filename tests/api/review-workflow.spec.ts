@@ -2,10 +2,7 @@
 // status, the transitions' results, optimistic concurrency, the queue, and the queued notices.
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { advise, caseInputSchema, wallFor } from '#shared/rules'
-import { costCaseFor } from '#shared/rules/advise'
-import { approachCost } from '#shared/rules/cost-model'
-import { flowPhysics } from '#shared/rules/flow-physics'
+import { advise, caseInputSchema, costFor, wallFor } from '#shared/rules'
 import type { ApiClient } from '../support/api-client'
 import { signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, uniqueTitle } from '../support/decisions'
@@ -217,9 +214,13 @@ describe('transitions', () => {
     expect(decision.advice).toEqual(JSON.parse(JSON.stringify(advice)))
     // Expected wall figures: the engine's own wallFor() for the chosen treatment, run here.
     const input = caseInputSchema.parse(CONDENSER_CASE)
-    const wall = JSON.parse(JSON.stringify(wallFor(input, 'wall-model', 60)))
+    const wall = JSON.parse(JSON.stringify(wallFor(input, 'wall-model', 60, 'wmles')))
     // Expected cost: the engine's cost model for the chosen approach and treatment, run here.
-    const { budgetRatio: _, ...cost } = approachCost('wmles', costCaseFor(input, flowPhysics(input)), 'wall-model', input.budget)
+    const full = costFor(input, 'wmles', 'wall-model')
+    const cost = {
+      cells: full.cells, timeSteps: full.timeSteps, coreHours: full.coreHours, wallClockHours: full.wallClockHours,
+      memoryGB: full.memoryGB, feasible: full.feasible, layers: full.layers,
+    }
     expect(decision.override).toEqual({
       ...choice,
       requestedYPlus: 60,
@@ -263,7 +264,7 @@ describe('transitions', () => {
     expect(override.cost.coreHours).toBeLessThan(engine.coreHours)
     expect(override.cost.wallClockHours).toBeCloseTo(override.cost.coreHours / DUCT_CASE.budget.cores, 9)
     const input = caseInputSchema.parse(DUCT_CASE)
-    const expected = approachCost('rans', costCaseFor(input, flowPhysics(input)), 'wall-function', input.budget)
+    const expected = costFor(input, 'rans', 'wall-function')
     expect(override.cost.coreHours).toBeCloseTo(expected.coreHours, 9)
     expect(override.cost.timeSteps).toBe(expected.timeSteps)
     // The event keeps the recomputed core-hours; lists and the overview count them.
