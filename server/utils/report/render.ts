@@ -1,7 +1,7 @@
 // The PDF record of a decision, for QA to file: what was asked, what the engine advised, what the
 // reviewer decided, and the verified history, laid out in our own design with embedded fonts.
 import PDFDocument from 'pdfkit'
-import { CAUTION_SUMMARY, GENERAL_CAUTIONS } from '#shared/rules/cautions'
+import { GENERAL_CAUTIONS } from '#shared/rules/cautions'
 import { DECISION_STATUS_LABELS } from '#shared/utils/decision-status'
 import { ROLE_LABELS, type Role } from '#shared/utils/roles'
 import { formatDuration, formatEstimate, formatQuantity, formatSig } from '#shared/utils/format'
@@ -9,7 +9,7 @@ import type { DecisionReportData } from './data'
 import { registerReportFonts, REPORT_FONTS } from './fonts'
 import { ACCENT, INK, MARGIN, MUTED, RULE, ReportWriter } from './layout'
 import { markdownToPlain } from './markdown-text'
-import { approachLabel, caseRows, costComparisonRows, eventDetails, treatmentLabel, utc, wallRows } from './sections'
+import { FOOTER_CAUTION, approachLabel, caseRows, costComparisonRows, eventDetails, treatmentLabel, utc, wallRows } from './sections'
 import { writeVerification } from './verification'
 
 /**
@@ -200,7 +200,7 @@ export function renderDecisionReport(data: DecisionReportData, options: { genera
     const y = page.height - MARGIN.bottom + 18
     doc.moveTo(MARGIN.left, y - 6).lineTo(page.width - MARGIN.right, y - 6).lineWidth(0.4).strokeColor(RULE).stroke()
     doc.font(REPORT_FONTS.sans).fontSize(7).fillColor(MUTED)
-      .text(CAUTION_SUMMARY, MARGIN.left, y, { width: w.width - 90 })
+      .text(FOOTER_CAUTION, MARGIN.left, y, { width: w.width - 90 })
     doc.text(`page ${i - range.start + 1} of ${range.count}`, page.width - MARGIN.right - 85, y, { width: 85, align: 'right' })
     doc.text(`${project.code} · decision ${decision.id} · v${decision.version}`, page.width - MARGIN.right - 85, y + 9, { width: 85, align: 'right' })
   }

@@ -13,6 +13,9 @@ export const treatmentLabel = (id: string) => WALL_TREATMENT_LABELS[id as WallTr
 
 /** One line for the footer of every page: the general cautions in brief. */
 
+/** One line for the footer of every page: the general cautions in brief, short enough for a footer. */
+export const FOOTER_CAUTION = "Order-of-magnitude estimates for planning; verify y+ on the real solution. Your organisation's procedures, local codes and licensed engineering practice take precedence."
+
 /** The case as the engineer typed it, in its units (the rows the decision page shows), then the figures the engine derived. */
 export function caseRows(data: DecisionReportData): [string, string][] {
   const { caseInput, advice, entered, unitSystem } = data.decision
