@@ -2,10 +2,7 @@
 // each revision, checked by the engine in SI with messages in the typed units, and the
 // engineer's own approach or wall treatment recorded against the engine's, costed.
 import { beforeAll, describe, expect, it } from 'vitest'
-import { advise, caseInputSchema } from '../../shared/rules'
-import { costCaseFor } from '../../shared/rules/advise'
-import { approachCost } from '../../shared/rules/cost-model'
-import { flowPhysics } from '../../shared/rules/flow-physics'
+import { advise, caseInputSchema, costFor } from '../../shared/rules'
 import { defaultCaseFormValues, enteredOf, toCaseInputDraft, type EnteredCase } from '../../shared/schemas/case-form'
 import { type ApiClient, signIn } from '../support/api-client'
 import { DUCT_CASE, createDraft, projectIds, uniqueTitle } from '../support/decisions'
@@ -103,7 +100,12 @@ describe("the engineer's own choice", () => {
     const d = res.body.decision
     expect(d.advice.recommendation.approach).toBe('rans')
     const input = caseInputSchema.parse(DUCT_CASE)
-    const { budgetRatio: _, ...cost } = approachCost('urans', costCaseFor(input, flowPhysics(input)), 'wall-function', input.budget)
+    // The record keeps the figures of the engine's costFor for the pair (the one costing function).
+    const full = costFor(input, 'urans', 'wall-function')
+    const cost = {
+      cells: full.cells, timeSteps: full.timeSteps, coreHours: full.coreHours, wallClockHours: full.wallClockHours,
+      memoryGB: full.memoryGB, feasible: full.feasible, layers: full.layers,
+    }
     expect(d.requested).toEqual({ ...requested, figures: expect.objectContaining({ approach: 'urans', wallTreatment: 'wall-function', cost: JSON.parse(JSON.stringify(cost)) }) })
     expect(d.requested.figures.wall.wallTreatment).toBe('wall-function')
     const row = (await engineer.get(`/api/projects/${project['KB-102']}/decisions?pageSize=100`)).body.decisions.find((x: { id: number }) => x.id === d.id)
