@@ -5,7 +5,7 @@ const NAV: Record<string, string[]> = {
   engineer: ['Projects'],
   reviewer: ['Review queue', 'Projects'],
   auditor: ['Audit', 'Overview', 'Projects'],
-  lead: ['Overview', 'Audit', 'Projects'],
+  lead: ['Overview', 'Audit', 'Calibration', 'Projects'],
   admin: ['Projects', 'Users', 'Manage projects', 'Mail'],
 }
 // Each role lands where its work waits.
