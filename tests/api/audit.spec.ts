@@ -8,7 +8,7 @@ import { act, createDraft, projectIds, tamperWithEvent, uniqueTitle } from '../s
 type AuditRow = {
   id: number; projectId: number; projectCode: string; title: string; status: string; revision: number
   author: { id: number; name: string }; eventCount: number; lastEventAt: string; lastHash: string
-  engineVersion: string; rulesetVersion: string
+  engineVersion: string; rulesetVersion: string; approach: string; unitSystem: string; coreHours: number; budgetCoreHours: number
   chain: { valid: boolean; checked: number; brokenAt: number | null }
 }
 
@@ -17,6 +17,7 @@ const CSV_HEADER = [
   'last hash', 'engine version', 'ruleset version',
   'wall checks', 'latest wall check in band', 'latest wall check verdict', 'latest wall check review', 'latest wall check sha256',
   'grid studies', 'latest fine-grid GCI', 'CPU runs', 'actual core-hours', 'estimated core-hours of the runs', 'retracted records',
+  'approach', 'unit system', 'estimated core-hours of the decision', 'core-hour budget',
 ]
 
 // A small RFC 4180 reader, so the export is checked without the server's writer.
@@ -169,6 +170,13 @@ describe('GET /api/audit/decisions.csv', () => {
       expect(line[7]).toBe(r.chain.valid ? 'yes' : 'no')
       expect(line[9]).toBe(r.lastHash)
       expect(line[10]).toBe(r.engineVersion)
+      // Numbers a spreadsheet reads: plain digits, the estimate to two significant figures.
+      const at = CSV_HEADER.indexOf('approach')
+      expect(line[at]).toBe(r.approach)
+      expect(line[at + 1]).toBe(r.unitSystem)
+      expect(Number(line[at + 2])).toBe(Number(r.coreHours.toPrecision(2)))
+      expect(line[at + 2]).toMatch(/^[\d.e+-]+$/)
+      expect(Number(line[at + 3])).toBe(r.budgetCoreHours)
     }
     const own = lines.find(l => Number(l[0]) === mine.id)!
     expect(own.slice(1, 9)).toEqual(['KB-102', awkwardTitle, 'Approved', 'Ada Ferreira', '1', '4', 'yes', ''])

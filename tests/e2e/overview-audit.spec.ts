@@ -4,7 +4,8 @@ import { gotoHydrated, keepScreenshot, signInAs } from '../support/e2e'
 
 const CSV_HEADER = 'decision id,project,title,status,author,revisions,events,chain valid,chain broken at event,last hash,engine version,ruleset version,'
   + 'wall checks,latest wall check in band,latest wall check verdict,latest wall check review,latest wall check sha256,'
-  + 'grid studies,latest fine-grid GCI,CPU runs,actual core-hours,estimated core-hours of the runs,retracted records'
+  + 'grid studies,latest fine-grid GCI,CPU runs,actual core-hours,estimated core-hours of the runs,retracted records,'
+  + 'approach,unit system,estimated core-hours of the decision,core-hour budget'
 
 test('the team lead reads the overview: figures, the method chart, the project table and a project filter', async ({ page }) => {
   await signInAs(page, 'lead')

@@ -16,6 +16,7 @@ const FERRY_CASE = {
 const OVERRIDE_COMMENT = 'The stern separation drives the resistance here; resolve its eddies with a hybrid model.'
 
 test('an engineer submits, a reviewer overrides from the queue, and the engineer sees why', async ({ page }) => {
+  test.setTimeout(150_000) // three people, two sign-ins each way, and a supersede
   const title = `Hull resistance at service speed ${Date.now().toString(36)}`
 
   // The engineer's draft, saved through the API in the engineer's own session.
@@ -108,8 +109,12 @@ test('an engineer submits, a reviewer overrides from the queue, and the engineer
   await page.getByRole('button', { name: 'Create the new draft' }).click()
   await expect(page).not.toHaveURL(new RegExp(`/decisions/${decisionId}$`))
   await expect(page.getByTestId('status-draft')).toBeVisible()
-  await expect(page.getByRole('link', { name: `decision ${decisionId}` })).toBeVisible()
-  await page.getByRole('link', { name: `decision ${decisionId}` }).click()
+  // The new draft starts from the reviewer's choice, recorded as the engineer's own.
+  await expect(page.getByTestId('requested-adopted')).toContainText(`Adopted from Priya Raman's override of decision ${decisionId}`)
+  await expect(page.getByTestId('requested-table-approach').getByTestId('other')).toHaveText('Hybrid RANS-LES (DES family)')
+  const header = page.getByTestId('decision-header')
+  await expect(header.getByRole('link', { name: `decision ${decisionId}` })).toBeVisible()
+  await header.getByRole('link', { name: `decision ${decisionId}` }).click()
   await expect(page.getByTestId('status-superseded')).toBeVisible()
   await expect(page.getByRole('button', { name: /Supersede/ })).toHaveCount(0)
 })

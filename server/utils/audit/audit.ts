@@ -3,6 +3,7 @@
 import { and, asc, count, desc, eq, inArray, sql } from 'drizzle-orm'
 import type { AuditFilter, AuditListQuery } from '#shared/schemas/audit'
 import { DECISION_STATUS_LABELS } from '#shared/utils/decision-status'
+import { FIGURES, formatPlain } from '#shared/utils/format'
 import { checkChain } from '../../db/event-chain'
 import { summaryQuery, toSummary } from '../decisions/queries'
 import { tables, useDb } from '../db'
@@ -69,6 +70,8 @@ export const AUDIT_CSV_COLUMNS = [
   // After the run (records that stand; retracted ones counted apart).
   'wall checks', 'latest wall check in band', 'latest wall check verdict', 'latest wall check review', 'latest wall check sha256',
   'grid studies', 'latest fine-grid GCI', 'CPU runs', 'actual core-hours', 'estimated core-hours of the runs', 'retracted records',
+  // What the decision stands for and its estimate against the budget, in the case's unit system.
+  'approach', 'unit system', 'estimated core-hours of the decision', 'core-hour budget',
 ] as const
 
 /**
@@ -96,6 +99,8 @@ export async function auditCsv(filter: AuditFilter) {
         r.chain.valid ? 'yes' : 'no', r.chain.brokenAt, r.lastHash, r.engineVersion, r.rulesetVersion,
         v.wallChecks, w?.fractionInBand, w?.verdict, w?.review, w?.sha256,
         v.gridStudies, v.latestGciFine, v.runs, v.runs ? v.actualCoreHours : null, v.estimatedCoreHours, v.retracted,
+        // Numbers for a spreadsheet to read: the product's one formatting module, plain digits.
+        r.approach, r.unitSystem, formatPlain(r.coreHours, FIGURES.estimate), formatPlain(r.budgetCoreHours),
       ].map(csvField).join(',')
     }),
   ]
