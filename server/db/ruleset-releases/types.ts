@@ -1,0 +1,10 @@
+import type { Rule, Ruleset } from '../../../shared/rules'
+
+/** A ruleset as data; an earlier version need not fit today's schema. */
+export interface ReleasedRulesetData {
+  id: string
+  version: string
+  baseScores: Ruleset['baseScores']
+  baseWhy: string
+  rules: Rule[]
+}
