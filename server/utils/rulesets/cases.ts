@@ -1,13 +1,13 @@
 // Canonical cases: inputs with the recommendation the team expects from its rules. A draft whose
 // case fails cannot be published. Relative imports only (the demo seed checks its cases too).
-import { advise, type Advice, type Ruleset } from '../../../shared/rules'
+import { advise, type Ruleset } from '../../../shared/rules'
 import type { ExpectedRecommendation, RecommendationChoice } from '../../../shared/types/rulesets'
 import type * as schema from '../../db/schema'
 
 export type RulesetCaseRow = typeof schema.rulesetCases.$inferSelect
 type CaseFields = Pick<RulesetCaseRow, 'title' | 'caseInput' | 'expected'>
 
-export function choiceOf(advice: Pick<Advice, 'recommendation'>): RecommendationChoice {
+export function choiceOf(advice: { recommendation: RecommendationChoice }): RecommendationChoice {
   const { approach, model, wallTreatment } = advice.recommendation
   return { approach, model, wallTreatment }
 }

@@ -45,8 +45,9 @@ export function changedRuleIds(from: { rules: readonly Rule[] }, to: { rules: re
   return changed
 }
 
+// Canonical JSON: stored advice comes back from jsonb with its keys reordered.
 function sameEffects(a: TraceEntry, b: TraceEntry) {
-  return JSON.stringify(a.effects) === JSON.stringify(b.effects)
+  return canonicalize(a.effects) === canonicalize(b.effects)
 }
 
 /** The rules behind a difference: fired under either ruleset and changed, or fired or applied differently. */
@@ -80,7 +81,7 @@ export function createReplay(from: Ruleset, to: Ruleset) {
     const input = inputOf(stored)
     const madeWithFrom = stored.engineVersion === ENGINE_VERSION && stored.rulesetId === from.id && stored.rulesetVersion === from.version
     let fromAdvice = madeWithFrom ? undefined : adviseParsed(input, { ruleset: from })
-    const fromChoice = fromAdvice ? choiceOf(fromAdvice) : stored.recommendation
+    const fromChoice = choiceOf({ recommendation: fromAdvice?.recommendation ?? stored.recommendation })
     const toAdvice = adviseParsed(input, { ruleset: to })
     const toChoice = choiceOf(toAdvice)
     if (sameChoice(fromChoice, toChoice)) return null
