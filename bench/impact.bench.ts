@@ -40,7 +40,7 @@ draftData.rules.find((r: { id: string }) => r.id === 'streamlined-aerodynamics-o
 draftData.rules.find((r: { id: string }) => r.id === 'mild-separation').effects.models = { rans: 'realizable k-epsilon', urans: 'realizable k-epsilon' }
 const draft = compileRuleset(draftData)
 
-let started = performance.now()
+const started = performance.now()
 const stored: StoredRevision[] = []
 for (let index = 0; index < DECISIONS; index++) {
   const caseInput = caseInputSchema.parse(generatedCase())
@@ -61,5 +61,4 @@ function run(label: string, decisions: StoredRevision[]) {
 }
 
 run('saved with the published version', stored)
-started = performance.now()
 run('saved with an older version     ', stored.map(d => ({ ...d, rulesetVersion: '0.9.0' })))

@@ -13,7 +13,6 @@ export type CompiledLogic = (data: unknown) => unknown
 type Values = unknown[]
 
 // json-logic-js's operations, with its coercions (loose equality, parseFloat in + and *).
-/* eslint-disable eqeqeq */
 const OPERATIONS: Record<string, (values: Values) => unknown> = {
   '==': v => v[0] == v[1],
   '===': v => v[0] === v[1],
@@ -39,7 +38,6 @@ const OPERATIONS: Record<string, (values: Values) => unknown> = {
   'min': v => Math.min(...(v as number[])),
   'max': v => Math.max(...(v as number[])),
 }
-/* eslint-enable eqeqeq */
 
 function isLogic(logic: unknown): logic is Record<string, unknown> {
   return typeof logic === 'object' && logic !== null && !Array.isArray(logic) && Object.keys(logic).length === 1

@@ -2,7 +2,7 @@
 // (the previous version retired, the history chained), each inside the caller's transaction.
 // Relative imports only, so the demo seed writes its versions through the same steps; refusals
 // come back as values and the server (rulesets.ts beside it) turns them into HTTP answers.
-import { and, asc, desc, eq, ne } from 'drizzle-orm'
+import { and, asc, eq, ne } from 'drizzle-orm'
 import { RULESET, compileRuleset, RulesetInvalidError, type CaseInput, type Rule, type RulesetProblem, type Ruleset } from '../../../shared/rules'
 import type { ExpectedRecommendation } from '../../../shared/types/rulesets'
 import type { Role } from '../../../shared/utils/roles'
