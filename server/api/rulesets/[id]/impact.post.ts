@@ -7,7 +7,7 @@ export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'lead', 'admin')
   const request = await readValidatedBody(event, zodValidator(impactRequestSchema))
   const outcome = await previewImpact(await requireRulesetRow(id, user), request, user)
-  if ('job' in outcome) {
+  if (outcome.job) {
     setResponseStatus(event, 202)
     return { job: jobSummary(outcome.job) }
   }
