@@ -236,6 +236,8 @@ export const teamSettings = pgTable('team_settings', {
   setBy: integer('set_by').notNull().references(() => users.id),
   note: text('note').notNull().default(''),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+})
+
 // ---- The team's rulesets: versions of the engine's rules as data.
 
 export const RULESET_EVENT_TYPES = ['installed', 'published'] as const

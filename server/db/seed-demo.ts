@@ -131,7 +131,7 @@ export const DEMO_CANONICAL_CASES: CanonicalCase[] = [
     expected: { approach: 'rans', model: 'k-omega SST', wallTreatment: 'resolved' },
   },
   { title: 'Rooftop condenser wake and tonal noise', caseInput: caseInputSchema.parse(CONDENSER_WAKE), expected: { approach: 'hybrid' } },
-  { title: 'Pump intake swirl with turbulence statistics', caseInput: caseInputSchema.parse(PUMP_INTAKE), expected: { approach: 'hybrid' } },
+  { title: 'Pump intake swirl with turbulence statistics', caseInput: caseInputSchema.parse(PUMP_INTAKE), expected: { approach: 'wmles' } },
 ]
 
 const SEED_START = () => Date.now() - 14 * DAY

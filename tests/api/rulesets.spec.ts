@@ -18,7 +18,7 @@ let owner: pg.Client
 const roles = ['engineer', 'reviewer', 'auditor', 'lead', 'admin'] as const
 const as = {} as Record<(typeof roles)[number], ApiClient>
 
-const RULE = 'streamlined-aerodynamics-one-equation-model'
+const RULE = 'attached-aerodynamics-sst'
 
 /** Attached flow over streamlined bodies: the edited rule decides their RANS model. */
 function streamlined(velocity: number, length: number, medium: 'air' | 'water' = 'air'): CaseInputDraft {
@@ -170,8 +170,8 @@ describe('drafting, impact and publication', () => {
 
   it('previews exactly the past decisions the edit flips, with the rule responsible (recomputed here)', async () => {
     const rules = structuredClone(draft.rules)
-    // The team's experience: attached streamlined bodies get k-omega SST rather than Spalart-Allmaras.
-    rules.find(r => r.id === RULE)!.effects.models = { rans: 'k-omega SST', urans: 'k-omega SST' }
+    // The team's experience: attached streamlined bodies get Spalart-Allmaras rather than k-omega SST.
+    rules.find(r => r.id === RULE)!.effects.models = { rans: 'Spalart-Allmaras', urans: 'Spalart-Allmaras' }
     const saved = await as.lead.put(`/api/rulesets/${draft.id}`, { rules })
     expect(saved.status, JSON.stringify(saved.body)).toBe(200)
     draft = saved.body.ruleset
@@ -185,8 +185,8 @@ describe('drafting, impact and publication', () => {
     expect(res.body.evaluated).toBe(total)
     expect(res.body.changes.map(({ rules: _rules, ...change }: { rules: string[] }) => change)).toEqual(expected)
     for (const change of res.body.changes) {
-      expect(change.from.model).toBe('Spalart-Allmaras')
-      expect(change.to.model).toBe('k-omega SST')
+      expect(change.from.model).toBe('k-omega SST')
+      expect(change.to.model).toBe('Spalart-Allmaras')
       expect(change.rules).toEqual([RULE])
     }
   })
@@ -223,20 +223,20 @@ describe('drafting, impact and publication', () => {
   it('cannot publish while a canonical case fails (409), and can once it passes', async () => {
     const current = (await as.lead.get(`/api/rulesets/${draft.id}/cases`)).body.cases as { title: string; caseInput: unknown; expected: unknown }[]
     const keep = current.map(({ title, caseInput, expected }) => ({ title, caseInput, expected }))
-    const wing = { title: 'Attached wing section at 50 m/s', caseInput: streamlined(50, 1), expected: { approach: 'rans', model: 'Spalart-Allmaras' } }
+    const wing = { title: 'Attached wing section at 50 m/s', caseInput: streamlined(50, 1), expected: { approach: 'rans', model: 'k-omega SST' } }
     const put = await as.lead.put(`/api/rulesets/${draft.id}/cases`, { cases: [...keep, wing] })
     expect(put.status, JSON.stringify(put.body)).toBe(200)
     expect(put.body.passing).toBe(false)
-    expect(put.body.cases.at(-1)).toMatchObject({ passes: false, actual: { approach: 'rans', model: 'k-omega SST' } })
+    expect(put.body.cases.at(-1)).toMatchObject({ passes: false, actual: { approach: 'rans', model: 'Spalart-Allmaras' } })
 
-    const refused = await as.lead.post(`/api/rulesets/${draft.id}/publish`, { note: 'Attached streamlined bodies get k-omega SST.' })
+    const refused = await as.lead.post(`/api/rulesets/${draft.id}/publish`, { note: 'Attached streamlined bodies get Spalart-Allmaras.' })
     expect(refused.status).toBe(409)
     expect(refused.body.message).toContain('Attached wing section at 50 m/s')
     expect((await as.lead.get('/api/rulesets/published')).body.ruleset.id).toBe(published.id)
 
-    const fixed = await as.lead.put(`/api/rulesets/${draft.id}/cases`, { cases: [...keep, { ...wing, expected: { approach: 'rans', model: 'k-omega SST' } }] })
+    const fixed = await as.lead.put(`/api/rulesets/${draft.id}/cases`, { cases: [...keep, { ...wing, expected: { approach: 'rans', model: 'Spalart-Allmaras' } }] })
     expect(fixed.body.passing).toBe(true)
-    const res = await as.lead.post(`/api/rulesets/${draft.id}/publish`, { note: 'Attached streamlined bodies get k-omega SST.' })
+    const res = await as.lead.post(`/api/rulesets/${draft.id}/publish`, { note: 'Attached streamlined bodies get Spalart-Allmaras.' })
     expect(res.status, JSON.stringify(res.body)).toBe(200)
     expect(res.body.ruleset).toMatchObject({ id: draft.id, status: 'published', version: draft.version, publishedBy: { name: 'Ruth Calder' } })
     const list = (await as.lead.get('/api/rulesets')).body.rulesets as RulesetBody[]
@@ -246,14 +246,14 @@ describe('drafting, impact and publication', () => {
     expect(history.chain).toMatchObject({ valid: true })
     expect(history.events.at(-1)).toMatchObject({
       type: 'published', rulesetId: draft.id, actor: { name: 'Ruth Calder' }, actorRole: 'lead',
-      payload: { version: draft.version, note: 'Attached streamlined bodies get k-omega SST.', replaces: { id: published.id, version: published.version } },
+      payload: { version: draft.version, note: 'Attached streamlined bodies get Spalart-Allmaras.', replaces: { id: published.id, version: published.version } },
     })
   })
 
   it('gives new advice with the new version while saved decisions, the one in review too, keep theirs', async () => {
     const advice = (await as.engineer.post('/api/advice', { caseInput: streamlined(50, 1) })).body.advice
     expect(advice.ruleset).toEqual({ id: draft.key, version: draft.version })
-    expect(advice.recommendation.model).toBe('k-omega SST')
+    expect(advice.recommendation.model).toBe('Spalart-Allmaras')
 
     const fresh = await createDraft(as.engineer, await projectId('KB-101'), { caseInput: streamlined(50, 1) })
     expect(fresh.advice.ruleset.version).toBe(draft.version)
@@ -262,7 +262,7 @@ describe('drafting, impact and publication', () => {
     const kept = (await as.reviewer.get(`/api/decisions/${inReview.id}`)).body.decision
     expect(kept.status).toBe('in_review')
     expect(kept.advice.ruleset.version).toBe(published.version)
-    expect(kept.advice.recommendation.model).toBe('Spalart-Allmaras')
+    expect(kept.advice.recommendation.model).toBe('k-omega SST')
     const { rows } = await owner.query('SELECT DISTINCT ruleset_version FROM decision_revisions WHERE created_at < (SELECT published_at FROM rulesets WHERE id = $1)', [draft.id])
     expect(rows.map(r => r.ruleset_version)).not.toContain(draft.version)
   })
@@ -272,8 +272,8 @@ describe('drafting, impact and publication', () => {
     const res = await as.reviewer.get(`/api/decisions/${inReview.id}/reevaluation`)
     expect(res.status).toBe(200)
     expect(res.body.reevaluation).toMatchObject({
-      made: { rulesetVersion: published.version, recommendation: { model: 'Spalart-Allmaras' } },
-      current: { rulesetVersion: draft.version, recommendation: { model: 'k-omega SST' } },
+      made: { rulesetVersion: published.version, recommendation: { model: 'k-omega SST' } },
+      current: { rulesetVersion: draft.version, recommendation: { model: 'Spalart-Allmaras' } },
       newerRuleset: true,
       recommendationChanged: true,
       differs: { approach: false, model: true, wallTreatment: false },
@@ -305,13 +305,13 @@ describe('drafting, impact and publication', () => {
     expect(rollback.version).toBe(`${draft.version.split('.')[0]}.${Number(draft.version.split('.')[1]) + 1}.0`)
     const impact = (await as.lead.post(`/api/rulesets/${rollback.id}/impact`, {})).body
     expect(impact.changes.length).toBeGreaterThan(0)
-    expect(impact.changes.every((c: { to: Choice }) => c.to.model === 'Spalart-Allmaras')).toBe(true)
+    expect(impact.changes.every((c: { to: Choice }) => c.to.model === 'k-omega SST')).toBe(true)
     // The draft carries the earlier version's canonical cases, which its rules pass.
     expect((await as.lead.get(`/api/rulesets/${rollback.id}/cases`)).body.passing).toBe(true)
     const done = await as.lead.post(`/api/rulesets/${rollback.id}/publish`, { note: 'Back to the engine\'s rules.' })
     expect(done.status, JSON.stringify(done.body)).toBe(200)
     expect((await as.engineer.post('/api/advice', { caseInput: streamlined(50, 1) })).body.advice).toMatchObject({
-      ruleset: { version: rollback.version }, recommendation: { model: 'Spalart-Allmaras' },
+      ruleset: { version: rollback.version }, recommendation: { model: 'k-omega SST' },
     })
   })
 

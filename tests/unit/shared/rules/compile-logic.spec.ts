@@ -6,7 +6,12 @@ import { describe, expect, it } from 'vitest'
 import { applyLogic, compileLogic } from '../../../../shared/rules/compile-logic'
 import { RULESET } from '../../../../shared/rules/ruleset'
 import { ALLOWED_OPERATIONS } from '../../../../shared/rules/ruleset-schema'
-import { advise } from '../../../../shared/rules/advise'
+import { APPROACH_IDS, defaultWallTreatments } from '../../../../shared/rules/approaches'
+import { caseInputSchema } from '../../../../shared/rules/case-input'
+import { costCaseFor } from '../../../../shared/rules/cost-case'
+import { approachCost, type ApproachCost } from '../../../../shared/rules/cost-model'
+import { buildPhysicsFacts, withCostFacts } from '../../../../shared/rules/facts'
+import { flowPhysics } from '../../../../shared/rules/flow-physics'
 import { validCase } from './arbitraries'
 
 // Facts with awkward values on purpose: nulls, strings that look like numbers, empty arrays.
@@ -46,21 +51,23 @@ describe('compiled json-logic', () => {
     fc.assert(fc.property(expression, facts, (logic, data) => {
       expect(outcome(() => compileLogic(logic)(data))).toEqual(outcome(() => jsonLogic.apply(logic as RulesLogic, data)))
     }), { numRuns: 3000 })
-  })
+  }, 60_000)
 
   it('gives what json-logic-js gives for every expression of the built-in ruleset on the facts of random cases', () => {
     const expressions = RULESET.rules.flatMap(rule => [rule.when, ...Object.values(rule.effects.scores ?? {})])
     fc.assert(fc.property(validCase, (draft) => {
-      const advice = advise(draft)
-      // The facts the rules saw are not part of the advice; rebuild the ones the expressions read.
-      const data = { ...draft, reynolds: advice.reynolds, mach: advice.mach, deltaPlus: advice.wall.deltaPlus,
-        budgetRatio: Object.fromEntries(advice.approaches.map(a => [a.id, a.coreHours / draft.budget.coreHours])),
-        feasible: Object.fromEntries(advice.approaches.map(a => [a.id, a.feasible])) }
+      // The facts the engine builds for the case, costs with each approach's default wall treatment.
+      const input = caseInputSchema.parse(draft)
+      const physics = flowPhysics(input)
+      const flow = costCaseFor(input, physics)
+      const treatments = defaultWallTreatments()
+      const costs = Object.fromEntries(APPROACH_IDS.map(id => [id, approachCost(id, flow, treatments[id], input.budget)])) as Record<(typeof APPROACH_IDS)[number], ApproachCost>
+      const data = withCostFacts(buildPhysicsFacts(input, physics), input.budget, costs)
       for (const logic of expressions) {
         expect(compileLogic(logic)(data)).toEqual(jsonLogic.apply(logic as RulesLogic, data))
       }
     }), { numRuns: 200 })
-  })
+  }, 60_000)
 
   it('compiles a frozen expression once and interprets a mutable one, so a later edit is seen', () => {
     const mutable: { '>': unknown[] } = { '>': [{ var: 'a' }, 1] }
