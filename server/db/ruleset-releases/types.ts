@@ -4,7 +4,8 @@ import type { Rule, Ruleset } from '../../../shared/rules'
 export interface ReleasedRulesetData {
   id: string
   version: string
-  baseScores: Ruleset['baseScores']
+  /** an earlier engine may have had fewer approaches */
+  baseScores: Partial<Ruleset['baseScores']>
   baseWhy: string
   rules: Rule[]
 }

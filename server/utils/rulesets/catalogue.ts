@@ -41,7 +41,7 @@ export async function latestReleasedVersion(db: DbOrTx, key: string): Promise<st
 }
 
 export async function insertDraft(tx: DbOrTx, input: {
-  source: { id: string; version: string; baseScores: Ruleset['baseScores']; baseWhy: string; rules: Rule[] }
+  source: { id: string; version: string; baseScores: Partial<Ruleset['baseScores']>; baseWhy: string; rules: Rule[] }
   note?: string
   basedOnId?: number | null
   actor: CatalogueActor | null
@@ -53,7 +53,8 @@ export async function insertDraft(tx: DbOrTx, input: {
     key: input.source.id,
     version: input.source.version,
     status: 'draft',
-    baseScores: input.source.baseScores,
+    // An earlier version's scores are stored as they shipped, whatever approaches today's engine has.
+    baseScores: input.source.baseScores as Ruleset['baseScores'],
     baseWhy: input.source.baseWhy,
     rules: input.source.rules,
     note: input.note ?? '',
