@@ -36,7 +36,7 @@ function generatedCase(): CaseInputDraft {
 const published = compileRuleset(JSON.parse(JSON.stringify(RULESET)))
 const draftData = JSON.parse(JSON.stringify(RULESET))
 draftData.version = '9.1.0'
-draftData.rules.find((r: { id: string }) => r.id === 'streamlined-aerodynamics-one-equation-model').effects.models = { rans: 'k-omega SST', urans: 'k-omega SST' }
+draftData.rules.find((r: { id: string }) => r.id === 'attached-aerodynamics-sst').effects.models = { rans: 'Spalart-Allmaras', urans: 'Spalart-Allmaras' }
 draftData.rules.find((r: { id: string }) => r.id === 'mild-separation').effects.models = { rans: 'realizable k-epsilon', urans: 'realizable k-epsilon' }
 const draft = compileRuleset(draftData)
 
