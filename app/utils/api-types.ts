@@ -17,3 +17,7 @@ export type DecisionDetail = ApiResponse<'/api/decisions/:id'>
 export type DecisionView = DecisionDetail['decision']
 export type DecisionPermissions = DecisionDetail['permissions']
 export type RevisionView = ApiResponse<'/api/decisions/:id/revisions/:n'>['revision']
+export type RulesetView = ApiResponse<'/api/rulesets/:id'>['ruleset']
+export type RulesetCaseView = ApiResponse<'/api/rulesets/:id/cases'>['cases'][number]
+export type ImpactJobView = ApiResponse<'/api/rulesets/impact-jobs/:jobId'>['job']
+export type RulesetHistoryEvent = ApiResponse<'/api/rulesets/history'>['events'][number]

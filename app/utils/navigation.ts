@@ -9,13 +9,14 @@ const NAV: Record<Role, NavItem[]> = {
   auditor: [{ to: '/audit', label: 'Audit' }, { to: '/overview', label: 'Overview' }, { to: '/projects', label: 'Projects' }],
   lead: [
     { to: '/overview', label: 'Overview' }, { to: '/audit', label: 'Audit' }, { to: '/calibration', label: 'Calibration' },
-    { to: '/projects', label: 'Projects' },
+    { to: '/projects', label: 'Projects' }, { to: '/rulesets', label: 'Rulesets' },
   ],
   admin: [
     { to: '/projects', label: 'Projects' },
     { to: '/admin/users', label: 'Users' },
     { to: '/admin/projects', label: 'Manage projects' },
     { to: '/admin/mail', label: 'Mail' },
+    { to: '/rulesets', label: 'Rulesets' },
   ],
 }
 

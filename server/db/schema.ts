@@ -4,9 +4,10 @@ import { sql } from 'drizzle-orm'
 import {
   bigserial, boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core'
-import type { Advice, CaseInput } from '../../shared/rules'
+import type { Advice, CaseInput, Rule, Ruleset } from '../../shared/rules'
 import type { EnteredCase } from '../../shared/schemas/case-form'
 import type { DecisionEventPayload, DecisionOverride, RequestedChoice } from '../../shared/types/decisions'
+import type { ExpectedRecommendation, RulesetEventPayload } from '../../shared/types/rulesets'
 import { UNIT_SYSTEMS } from '../../shared/units/catalogue'
 import { DECISION_STATUSES } from '../../shared/utils/decision-status'
 import { ROLES } from '../../shared/utils/roles'
@@ -15,6 +16,7 @@ import type { AdoptedEntry } from '../../shared/verification/calibration'
 import type { GridLevel, GridStudyResult } from '../../shared/verification/grid-convergence'
 import type { WallCheckColumns, WallCheckResult } from '../../shared/verification/wall-check'
 import type { YPlusBand } from '../../shared/verification/wall-yplus'
+import { RULESET_STATUSES } from '../../shared/utils/ruleset-status'
 
 export const EVENT_TYPES = [
   'created', 'revised', 'submitted', 'approved', 'overridden', 'changes_requested', 'commented', 'superseded',
@@ -234,4 +236,64 @@ export const teamSettings = pgTable('team_settings', {
   setBy: integer('set_by').notNull().references(() => users.id),
   note: text('note').notNull().default(''),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+})
+
+// ---- The team's rulesets: versions of the engine's rules as data.
+
+export const RULESET_EVENT_TYPES = ['installed', 'published'] as const
+export const rulesetStatusEnum = pgEnum('ruleset_status', RULESET_STATUSES)
+export const rulesetEventTypeEnum = pgEnum('ruleset_event_type', RULESET_EVENT_TYPES)
+
+// One row per version, in the shape the engine reads (key = the ruleset's id there). A published or
+// retired row is immutable and kept for good (trigger in a custom migration); drafts are edited.
+export const rulesets = pgTable('rulesets', {
+  id: serial('id').primaryKey(),
+  key: text('key').notNull(),
+  version: text('version').notNull(),
+  status: rulesetStatusEnum('status').notNull().default('draft'),
+  baseScores: jsonb('base_scores').$type<Ruleset['baseScores']>().notNull(),
+  baseWhy: text('base_why').notNull(),
+  rules: jsonb('rules').$type<Rule[]>().notNull(),
+  // The lead's change note: worked on in the draft, fixed at publication.
+  note: text('note').notNull().default(''),
+  basedOnId: integer('based_on_id'),
+  // sha256 of the canonical engine form, fixed at publication and chained into the history.
+  contentHash: text('content_hash'),
+  // Null for the version installed with the engine.
+  createdBy: integer('created_by').references(() => users.id),
+  publishedBy: integer('published_by').references(() => users.id),
+  publishedAt: timestamp('published_at', { withTimezone: true }),
+  retiredAt: timestamp('retired_at', { withTimezone: true }),
+  ...timestamps,
+}, t => [
+  uniqueIndex('rulesets_released_version_unique').on(t.key, t.version).where(sql`${t.status} <> 'draft'`),
+  uniqueIndex('rulesets_one_published').on(t.status).where(sql`${t.status} = 'published'`),
+])
+
+// A ruleset's canonical cases: inputs with the recommendation the team expects. Kept with a
+// published version as it was (trigger), copied into each new draft.
+export const rulesetCases = pgTable('ruleset_cases', {
+  id: serial('id').primaryKey(),
+  rulesetId: integer('ruleset_id').notNull().references(() => rulesets.id, { onDelete: 'cascade' }),
+  position: integer('position').notNull(),
+  title: text('title').notNull(),
+  caseInput: jsonb('case_input').$type<CaseInput>().notNull(),
+  expected: jsonb('expected').$type<ExpectedRecommendation>().notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [uniqueIndex('ruleset_cases_position_unique').on(t.rulesetId, t.position)])
+
+// The ruleset history: append-only (trigger) and one hash chain over every version's
+// installation and publication, hash = sha256(prevHash + canonical event).
+export const rulesetEvents = pgTable('ruleset_events', {
+  id: bigserial('id', { mode: 'number' }).primaryKey(),
+  seq: integer('seq').notNull().unique(),
+  rulesetId: integer('ruleset_id').notNull().references(() => rulesets.id),
+  type: rulesetEventTypeEnum('type').notNull(),
+  // Null for the installation of the engine's own ruleset.
+  actorId: integer('actor_id').references(() => users.id),
+  actorRole: roleEnum('actor_role'),
+  payload: jsonb('payload').$type<RulesetEventPayload>().notNull().default({}),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull(),
+  prevHash: text('prev_hash').notNull(),
+  hash: text('hash').notNull(),
 })

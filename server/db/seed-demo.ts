@@ -1,8 +1,10 @@
 // The demo scenario: Kestrel Bay Flow Consulting, a fictional CFD consultancy, and four projects of
 // its own. Relative imports only: run by scripts/seed.ts under plain Node.
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres'
-import { advise, caseInputSchema, type CaseInputDraft } from '../../shared/rules'
+import { advise, caseInputSchema, compileRuleset, RulesetInvalidError, type CaseInputDraft, type Ruleset } from '../../shared/rules'
 import { changeDecision, insertDecision, overrideRecord, reviseDecisionRecord } from '../utils/decisions/record'
+import { checkCases } from '../utils/rulesets/cases'
+import { insertDraft, releaseDraft, shippedRulesets, type CanonicalCase } from '../utils/rulesets/catalogue'
 import { appendChainedEvent } from './event-chain'
 import * as schema from './schema'
 
@@ -57,7 +59,7 @@ export async function seedDemo(db: Db, passwordHash: string) {
       projectId: project!.id, userId: userByKey.get(key)!.id,
     })))
   }
-  await seedDemoDecisions(db, userByKey)
+  await seedDemoDecisions(db, userByKey, await seedDemoRulesets(db, userByKey))
   return { users: userByKey }
 }
 
@@ -116,26 +118,84 @@ export const PUMP_INTAKE: CaseInputDraft = {
   budget: { coreHours: 30_000, cores: 256, wallClockHours: 96 },
 }
 
+// Kestrel Bay's own canonical cases: what the team expects its rules to recommend.
+export const DEMO_CANONICAL_CASES: CanonicalCase[] = [
+  {
+    title: 'Ferry hull at service speed, mild separation at the transom',
+    caseInput: caseInputSchema.parse(FERRY_HULL),
+    expected: { approach: 'rans', model: 'k-omega SST', wallTreatment: 'wall-function' },
+  },
+  {
+    title: 'Data-hall supply duct with wall heat transfer',
+    caseInput: caseInputSchema.parse(DATA_HALL_DUCT),
+    expected: { approach: 'rans', model: 'k-omega SST', wallTreatment: 'resolved' },
+  },
+  { title: 'Rooftop condenser wake and tonal noise', caseInput: caseInputSchema.parse(CONDENSER_WAKE), expected: { approach: 'hybrid' } },
+  { title: 'Pump intake swirl with turbulence statistics', caseInput: caseInputSchema.parse(PUMP_INTAKE), expected: { approach: 'wmles' } },
+]
+
+const SEED_START = () => Date.now() - 14 * DAY
+
+type DemoRulesets = { earlier: Ruleset | null; current: Ruleset }
+
+/**
+ * The team's ruleset versions: every version the engine shipped, published in turn by the lead,
+ * the built-in one last with the team's canonical cases. When there is an earlier version, the
+ * first demo decisions are made with it and the built-in one is published in between.
+ */
+export async function seedDemoRulesets(db: Db, users: Map<DemoUserKey, DemoUser>): Promise<DemoRulesets> {
+  const lead = users.get('lead')!
+  const shipped = shippedRulesets()
+  const builtIn = shipped.at(-1)!
+  const current = compileRuleset(builtIn)
+  const failing = checkCases(current, DEMO_CANONICAL_CASES).filter(item => !item.passes)
+  if (failing.length) throw new Error(`demo canonical cases fail under ${builtIn.version}: ${failing.map(f => `${f.title}: ${f.misses.join(', ')}`).join('; ')}`)
+  const at = (days: number) => new Date(SEED_START() + days * DAY)
+  await db.transaction(async (tx) => {
+    for (const [index, source] of shipped.slice(0, -1).entries()) {
+      const row = await insertDraft(tx, { source, actor: lead, at: at(-40 + index) })
+      await releaseDraft(tx, { row, note: `Our first ruleset: the engine's rules ${source.version} as shipped.`, actor: lead, at: at(-40 + index) })
+    }
+    const publishAt = shipped.length > 1 ? at(7) : at(-1)
+    const row = await insertDraft(tx, { source: builtIn, actor: lead, cases: DEMO_CANONICAL_CASES, at: publishAt })
+    await releaseDraft(tx, {
+      row, actor: lead, at: publishAt,
+      note: `The engine's rules ${builtIn.version}, with our canonical cases: the hull, the duct, the condenser wake and the pump intake.`,
+    })
+  })
+  let earlier: Ruleset | null = null
+  try {
+    earlier = shipped.length > 1 ? compileRuleset(shipped.at(-2)) : null
+  } catch (error) {
+    // An earlier version that no longer fits the engine's schema is kept as a record only.
+    if (!(error instanceof RulesetInvalidError)) throw error
+  }
+  return { earlier, current }
+}
+
 /**
  * A few decisions at every stage of review, written through the same record steps as the server
- * (advice from advise(), revisions, chained events), dated over the last fortnight.
+ * (advice from advise(), revisions, chained events), dated over the last fortnight; the first
+ * ones with the earlier ruleset version when the seed has one.
  */
-export async function seedDemoDecisions(db: Db, users: Map<DemoUserKey, DemoUser>) {
+export async function seedDemoDecisions(db: Db, users: Map<DemoUserKey, DemoUser>, rulesets?: DemoRulesets) {
   const user = (key: DemoUserKey) => users.get(key)!
   const projects = await db.select().from(schema.projects)
   const project = (code: string) => projects.find(p => p.code === code)!.id
-  const start = Date.now() - 14 * DAY
+  const start = SEED_START()
   const at = (days: number) => new Date(start + days * DAY)
+  const ruleset = rulesets?.current
+  const earlier = rulesets?.earlier ?? ruleset
 
   await db.transaction(async (tx) => {
     // KB-101: approved after a revision.
     const hull = await insertDecision(tx, {
       projectId: project('KB-101'), title: 'Ferry hull calm-water resistance at service speed',
-      caseInput: { ...FERRY_HULL, separation: 'none' }, author: user('engineer'),
+      caseInput: { ...FERRY_HULL, separation: 'none' }, author: user('engineer'), ruleset: earlier,
       notes: 'Full-scale hull, bare, at 6 m/s.', at: at(0),
     })
     const revised = await reviseDecisionRecord(tx, {
-      decisionId: hull.id, version: hull.version, caseInput: FERRY_HULL, actor: user('engineer'), at: at(1),
+      decisionId: hull.id, version: hull.version, caseInput: FERRY_HULL, actor: user('engineer'), ruleset: earlier, at: at(1),
       notes: 'Full-scale hull, bare, at 6 m/s. Mild separation expected at the transom stern.',
     })
     const submitted = await changeDecision(tx, {
@@ -151,14 +211,14 @@ export async function seedDemoDecisions(db: Db, users: Map<DemoUserKey, DemoUser
     // KB-103: overridden by the second reviewer, with the author's reply.
     const wake = await insertDecision(tx, {
       projectId: project('KB-103'), title: 'Condenser wake and tonal noise at the east facade',
-      caseInput: CONDENSER_WAKE, author: user('engineer'), at: at(3),
+      caseInput: CONDENSER_WAKE, author: user('engineer'), ruleset: earlier, at: at(3),
       notes: 'Two units side by side; receiver at the facade 12 m downwind.',
     })
     const inReview = await changeDecision(tx, {
       decisionId: wake.id, version: wake.version, from: ['draft'], set: { status: 'in_review' },
       event: { type: 'submitted', actor: user('engineer') }, at: at(3.5),
     })
-    const advice = advise(CONDENSER_WAKE)
+    const advice = advise(CONDENSER_WAKE, { ruleset: earlier })
     const recommended = advice.recommendation.approach
     const choice = recommended === 'hybrid'
       ? {
@@ -188,7 +248,7 @@ export async function seedDemoDecisions(db: Db, users: Map<DemoUserKey, DemoUser
     // KB-102: waiting for a reviewer.
     const duct = await insertDecision(tx, {
       projectId: project('KB-102'), title: 'Supply duct pressure drop and wall heat transfer',
-      caseInput: DATA_HALL_DUCT, author: user('engineer2'), at: at(11),
+      caseInput: DATA_HALL_DUCT, author: user('engineer2'), ruleset, at: at(11),
       notes: 'Main supply run, 0.6 m round galvanised duct.',
     })
     await changeDecision(tx, {
@@ -199,7 +259,7 @@ export async function seedDemoDecisions(db: Db, users: Map<DemoUserKey, DemoUser
     // KB-104: a draft still being worked on.
     await insertDecision(tx, {
       projectId: project('KB-104'), title: 'Intake bay swirl at the pump bell mouth',
-      caseInput: PUMP_INTAKE, author: user('engineer2'), at: at(13),
+      caseInput: PUMP_INTAKE, author: user('engineer2'), ruleset, at: at(13),
       notes: 'Pump 2 of 3, low water level case.',
     })
   })

@@ -8,7 +8,7 @@ import { evaluateStage, type RuleOutcome } from './evaluate-rules'
 import type { Facts } from './facts'
 import { formatScoreChange } from './format'
 import { RULESET } from './ruleset'
-import type { Rule } from './ruleset-schema'
+import type { Rule, Ruleset } from './ruleset-schema'
 
 export interface ScoringStage {
   /** unclamped totals */
@@ -36,14 +36,14 @@ function reasonTail(rule: Rule): string {
   return tail
 }
 
-export function scoringStage(facts: Facts): ScoringStage {
-  const outcomes = evaluateStage(RULESET, 'scoring', facts)
+export function scoringStage(facts: Facts, ruleset: Ruleset = RULESET): ScoringStage {
+  const outcomes = evaluateStage(ruleset, 'scoring', facts)
   const models = defaultModels()
   const totals = {} as Record<ApproachId, number>
   const reasons = {} as Record<ApproachId, string[]>
   for (const id of APPROACH_IDS) {
-    totals[id] = RULESET.baseScores[id]
-    reasons[id] = [`Starts at ${RULESET.baseScores[id]} (the ruleset's base score).`]
+    totals[id] = ruleset.baseScores[id]
+    reasons[id] = [`Starts at ${ruleset.baseScores[id]} (the ruleset's base score).`]
   }
   const cautions: string[] = []
   for (const outcome of outcomes) {

@@ -6,7 +6,7 @@ import { defaultWallTreatments, type ApproachId, type WallTreatment } from './ap
 import { evaluateStage, type RuleOutcome } from './evaluate-rules'
 import type { PhysicsFacts } from './facts'
 import { RULESET } from './ruleset'
-import type { Rule } from './ruleset-schema'
+import type { Rule, Ruleset } from './ruleset-schema'
 
 export interface TreatmentStage {
   treatments: Record<ApproachId, WallTreatment>
@@ -21,8 +21,8 @@ export function pushUnique(list: string[], items: readonly string[] | undefined)
   for (const item of items) if (!list.includes(item)) list.push(item)
 }
 
-export function treatmentStage(facts: PhysicsFacts): TreatmentStage {
-  const outcomes = evaluateStage(RULESET, 'treatment', facts)
+export function treatmentStage(facts: PhysicsFacts, ruleset: Ruleset = RULESET): TreatmentStage {
+  const outcomes = evaluateStage(ruleset, 'treatment', facts)
   const treatments = defaultWallTreatments()
   const ruleOf: Partial<Record<ApproachId, Rule>> = {}
   const cautions: string[] = []

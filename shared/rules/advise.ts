@@ -23,10 +23,16 @@ import { budgetText, costReasons, flowReasons, type BudgetText } from './reasons
 import { chooseWithinBudget, sortApproaches } from './ranking'
 import { regimeAdvice, roughnessAdvice } from './regime-summary'
 import { RULESET } from './ruleset'
+import type { Ruleset } from './ruleset-schema'
 import { wallFigures } from './wall-figures'
 
 /** Semantic version of the engine's code (the ruleset has its own). */
 export const ENGINE_VERSION = '2.0.0'
+
+export interface AdviseOptions {
+  /** The rules to apply (a team's published version, a draft under review); the built-in RULESET when absent. Compile it once with compileRuleset(). */
+  ruleset?: Ruleset
+}
 
 /** Costs of every approach with the chosen wall treatments. */
 function costsFor(input: CaseInput, flow: CostCase, treatments: Record<ApproachId, WallTreatment>): Record<ApproachId, ApproachCost> {
@@ -104,12 +110,13 @@ function listedApproaches(physics: FlowPhysics): readonly ApproachId[] {
 }
 
 /** advise() on an input already parsed by caseInputSchema. */
-export function adviseParsed(input: CaseInput): Advice {
+export function adviseParsed(input: CaseInput, options: AdviseOptions = {}): Advice {
+  const ruleset = options.ruleset ?? RULESET
   const physics = flowPhysics(input)
   const facts = buildPhysicsFacts(input, physics)
-  const treatment = treatmentStage(facts)
+  const treatment = treatmentStage(facts, ruleset)
   const costs = costsFor(input, costCaseFor(input, physics), treatment.treatments)
-  const scoring = scoringStage(withCostFacts(facts, input.budget, costs))
+  const scoring = scoringStage(withCostFacts(facts, input.budget, costs), ruleset)
   const context: EntryContext = { input, costs, treatment, scoring, text: budgetText(input.budget), shared: flowReasons(input, physics) }
   const ids = listedApproaches(physics)
   const approaches = sortApproaches(
@@ -134,7 +141,7 @@ export function adviseParsed(input: CaseInput): Advice {
     wall,
     cautions,
     trace: [...treatment.outcomes, ...scoring.outcomes].map(traceEntry),
-    ruleset: { id: RULESET.id, version: RULESET.version },
+    ruleset: { id: ruleset.id, version: ruleset.version },
     engineVersion: ENGINE_VERSION,
     regime: regimeAdvice(physics),
     roughness: roughnessAdvice(physics),
@@ -153,6 +160,6 @@ export function adviseParsed(input: CaseInput): Advice {
  * Advice for a case. The input is parsed with caseInputSchema first, so defaults apply and an
  * invalid case throws a ZodError with per-field messages.
  */
-export function advise(input: CaseInputDraft | CaseInput): Advice {
-  return adviseParsed(parseCaseInput(input))
+export function advise(input: CaseInputDraft | CaseInput, options: AdviseOptions = {}): Advice {
+  return adviseParsed(parseCaseInput(input), options)
 }

@@ -3,10 +3,11 @@
  * fired and what it applies. The caller (advise.ts) merges the outcomes into scores, models,
  * wall treatments and cautions.
  */
-import jsonLogic, { type RulesLogic } from 'json-logic-js'
+import jsonLogic from 'json-logic-js'
 import type { ApproachId, WallTreatment } from './approaches'
 import type { Facts, PhysicsFacts } from './facts'
 import type { Rule, Ruleset } from './ruleset-schema'
+import { applyLogic } from './compile-logic'
 
 export interface AppliedEffects {
   readonly scores?: Readonly<Partial<Record<ApproachId, number>>>
@@ -28,11 +29,11 @@ export interface RuleOutcome {
 
 /** Truthiness as json-logic defines it (an empty array is false). */
 export function conditionHolds(when: unknown, facts: PhysicsFacts | Facts): boolean {
-  return jsonLogic.truthy(jsonLogic.apply(when as RulesLogic, facts))
+  return jsonLogic.truthy(applyLogic(when, facts))
 }
 
 function scoreChange(rule: Rule, approach: ApproachId, change: unknown, facts: PhysicsFacts | Facts): number {
-  const value = typeof change === 'number' ? change : jsonLogic.apply(change as RulesLogic, facts)
+  const value = typeof change === 'number' ? change : applyLogic(change, facts)
   if (typeof value !== 'number' || !Number.isFinite(value)) {
     throw new Error(`Rule "${rule.id}" gave a score change for ${approach} that is not a finite number.`)
   }

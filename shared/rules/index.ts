@@ -12,7 +12,7 @@ export {
   type DomainInput,
   type Quantity,
 } from './case-input'
-export { advise, adviseParsed, ENGINE_VERSION } from './advise'
+export { advise, adviseParsed, ENGINE_VERSION, type AdviseOptions } from './advise'
 export type {
   Advice,
   ApproachAdvice,
@@ -42,5 +42,6 @@ export {
   type WallTreatment,
 } from './approaches'
 export { RULESET } from './ruleset'
-export type { Rule, Ruleset } from './ruleset-schema'
+export type { Rule, Ruleset, RulesetSource } from './ruleset-schema'
+export { compileRuleset, describeProblem, rulesetProblems, RulesetInvalidError, type RulesetProblem } from './compile-ruleset'
 export { CAUTION_SUMMARY, GENERAL_CAUTIONS } from './cautions'

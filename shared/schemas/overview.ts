@@ -6,7 +6,7 @@ const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/
 // An empty field in the query means "not set", as a cleared date input sends it.
 const blankIsUnset = (value: unknown) => (value === '' ? undefined : value)
 
-function isoDate(what: string) {
+export function isoDate(what: string) {
   return z.preprocess(blankIsUnset, z.string({ invalid_type_error: `${what} must be a date.` })
     .regex(ISO_DATE, `${what} must be a date written YYYY-MM-DD.`)
     .refine(text => !Number.isNaN(Date.parse(`${text}T00:00:00Z`)) && new Date(`${text}T00:00:00Z`).toISOString().startsWith(text), `${what} is not a calendar date.`)

@@ -4,7 +4,7 @@ import { createHash } from 'node:crypto'
 import canonicalize from 'canonicalize'
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { advise } from '#shared/rules'
+import { advise, compileRuleset, type Ruleset } from '#shared/rules'
 import type { ApiClient} from '../support/api-client';
 import { signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, tamperWithEvent } from '../support/decisions'
@@ -75,6 +75,12 @@ describe('the hash chain', () => {
 
   it('holds the demo decisions the seed wrote: every stage of review, engine advice, intact chains', async () => {
     const statuses: string[] = []
+    // Each decision was advised with the ruleset version it names, read from the catalogue.
+    const catalogue = (await auditor.get('/api/rulesets')).body.rulesets as { key: string; version: string; baseScores: Ruleset['baseScores']; baseWhy: string; rules: unknown[] }[]
+    const rulesetNamed = (version: string) => {
+      const r = catalogue.find(entry => entry.version === version)!
+      return compileRuleset({ id: r.key, version: r.version, baseScores: r.baseScores, baseWhy: r.baseWhy, rules: r.rules })
+    }
     for (const code of ['KB-101', 'KB-102', 'KB-103', 'KB-104']) {
       const { decisions } = (await auditor.get(`/api/projects/${project[code]}/decisions?pageSize=100`)).body
       for (const d of decisions as { id: number; status: string; createdAt: string }[]) {
@@ -83,7 +89,8 @@ describe('the hash chain', () => {
         statuses.push(d.status)
         const detail = (await auditor.get(`/api/decisions/${d.id}`)).body
         // Expected: the engine run here on the stored input (the seed never writes advice of its own).
-        expect(detail.decision.advice, `decision ${d.id}`).toEqual(JSON.parse(JSON.stringify(advise(detail.decision.caseInput))))
+        const ruleset = rulesetNamed(detail.decision.advice.ruleset.version)
+        expect(detail.decision.advice, `decision ${d.id}`).toEqual(JSON.parse(JSON.stringify(advise(detail.decision.caseInput, { ruleset }))))
         expect((await auditor.get(`/api/decisions/${d.id}/verify`)).body, `decision ${d.id}`).toEqual({
           valid: true, checked: detail.events.length, brokenAt: null,
         })

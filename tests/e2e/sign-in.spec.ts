@@ -5,8 +5,8 @@ const NAV: Record<string, string[]> = {
   engineer: ['Projects'],
   reviewer: ['Review queue', 'Projects'],
   auditor: ['Audit', 'Overview', 'Projects'],
-  lead: ['Overview', 'Audit', 'Calibration', 'Projects'],
-  admin: ['Projects', 'Users', 'Manage projects', 'Mail'],
+  lead: ['Overview', 'Audit', 'Calibration', 'Projects', 'Rulesets'],
+  admin: ['Projects', 'Users', 'Manage projects', 'Mail', 'Rulesets'],
 }
 // Each role lands where its work waits.
 const LANDING: Record<string, RegExp> = {

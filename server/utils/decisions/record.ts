@@ -3,7 +3,7 @@
 // Relative imports only, so the demo seed writes its decisions through the same steps. Guards
 // (who may do what) and error messages are the server's (policy.ts, workflow.ts, review.ts beside it).
 import { and, eq, inArray, sql } from 'drizzle-orm'
-import { advise, caseInputSchema, costFor, wallFor, APPROACH_LABELS, WALL_TREATMENT_LABELS, WALL_TREATMENTS_BY_APPROACH, type Advice, type ApproachId, type CaseInput, type CaseInputDraft, type WallTreatment } from '../../../shared/rules'
+import { advise, caseInputSchema, costFor, wallFor, APPROACH_LABELS, WALL_TREATMENT_LABELS, WALL_TREATMENTS_BY_APPROACH, type Advice, type ApproachId, type CaseInput, type CaseInputDraft, type Ruleset, type WallTreatment } from '../../../shared/rules'
 import { enteredFromCaseInput, type EnteredCase } from '../../../shared/schemas/case-form'
 import type { RequestedChoiceBody } from '../../../shared/schemas/requested-choice'
 import type { ChoiceFigures, DecisionOverride, RequestedChoice } from '../../../shared/types/decisions'
@@ -79,6 +79,8 @@ export type CaseSubmission = {
   unitSystem?: UnitSystem
   entered?: EnteredCase
   requested?: (RequestedChoiceBody & { adoptedFrom?: RequestedChoice['adoptedFrom'] }) | null
+  /** the published ruleset (the built-in one when absent, e.g. in unit tests) */
+  ruleset?: Ruleset
 }
 
 /**
@@ -88,7 +90,7 @@ export type CaseSubmission = {
  */
 export function adviceRecord(submission: CaseSubmission) {
   const caseInput = caseInputSchema.parse(submission.caseInput)
-  const advice = advise(caseInput)
+  const advice = advise(caseInput, { ruleset: submission.ruleset })
   const unitSystem = submission.unitSystem ?? 'si'
   return {
     caseInput,

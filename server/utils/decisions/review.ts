@@ -17,6 +17,7 @@ import type { SessionUser } from '#shared/types/session'
 import type { DbOrTx } from '../../db/types'
 import type { DecisionNoticeType } from '../mail/notices'
 import { tables, useDb } from '../db'
+import { publishedRuleset } from '../rulesets/rulesets'
 
 // The review workflow's transitions. Each one is a conditional UPDATE (the version the client saw
 // and an allowed status) plus its chained event and its mail, in one transaction; the mail is
@@ -158,6 +159,7 @@ export async function supersedeDecision(decisionId: number, body: { version: num
     const created = await insertDecision(tx, {
       projectId: old.projectId, title: body.title ?? old.title, notes: current.notes, author: user, supersedesId: old.id,
       ...successorCase(current, old.override ?? null, old.id),
+      ruleset: await publishedRuleset(tx),
     })
     const row = await changeDecision(tx, {
       decisionId, version: body.version, from: ['approved', 'overridden'],

@@ -9,6 +9,7 @@ import { statusWord } from './policy'
 import { findDecision, readDecision } from './queries'
 import { insertDecision, RequestedChoiceError, reviseDecisionRecord } from './record'
 import { useDb } from '../db'
+import { publishedRuleset } from '../rulesets/rulesets'
 
 /**
  * After a conditional update matched nothing: say why, from the decision as it is now. A stale
@@ -35,6 +36,7 @@ export async function createDecision(project: { id: number; code: string; archiv
     const decision = await insertDecision(tx, {
       projectId: project.id, title: body.title, notes: body.notes, author: user,
       caseInput: body.caseInput, unitSystem: body.unitSystem, entered: body.entered, requested: body.requested,
+      ruleset: await publishedRuleset(tx),
     }).catch(refusedChoice)
     return readDecision(decision.id, tx)
   })
@@ -45,6 +47,7 @@ export async function reviseDecision(decisionId: number, body: DecisionReviseBod
     const row = await reviseDecisionRecord(tx, {
       decisionId, version: body.version, notes: body.notes, title: body.title, actor: user,
       caseInput: body.caseInput, unitSystem: body.unitSystem, entered: body.entered, requested: body.requested,
+      ruleset: await publishedRuleset(tx),
     }).catch(refusedChoice)
     if (!row) await throwConflict(tx, decisionId, body.version, ['draft'], 'revised')
     return readDecision(decisionId, tx)

@@ -5,6 +5,7 @@ import { DECISION_STATUSES, type DecisionStatus } from '#shared/utils/decision-s
 import type { OverviewQuery } from '#shared/schemas/overview'
 import { budgetCoreHours, chosenApproach, chosenCoreHours, chosenModel, currentRevisionJoin } from '../decisions/queries'
 import { tables, useDb } from '../db'
+import { decisionsByRulesetVersion } from '../rulesets/usage'
 
 const decisions = tables.decisions
 const revisions = tables.decisionRevisions
@@ -57,7 +58,7 @@ export async function decisionOverview(query: OverviewQuery) {
     rule: sql<string>`jsonb_array_elements_text(coalesce(${decisions.override}->'disagreedRules', '[]'::jsonb))`.as('rule'),
   }).from(decisions).where(and(overviewWhere(query), isNotNull(decisions.override))).as('disagreed')
 
-  const [byStatus, [overrideTotals], byApproach, byModel, perProject, pairs, rules, projectRows] = await Promise.all([
+  const [byStatus, [overrideTotals], byApproach, byModel, perProject, pairs, rules, projectRows, byRuleset] = await Promise.all([
     db.select({ status: base.status, count: n }).from(base).groupBy(base.status),
     db.select({ overridden: countOverridden }).from(base),
     db.select({ approach: base.approach, count: n }).from(base).groupBy(base.approach).orderBy(desc(n), asc(base.approach)),
@@ -80,6 +81,7 @@ export async function decisionOverview(query: OverviewQuery) {
       .orderBy(desc(count()), asc(disagreed.rule)).limit(TOP),
     db.select({ id: tables.projects.id, code: tables.projects.code, name: tables.projects.name, archived: tables.projects.archived })
       .from(tables.projects).where(query.projectId ? eq(tables.projects.id, query.projectId) : undefined).orderBy(asc(tables.projects.code)),
+    decisionsByRulesetVersion(overviewWhere(query)),
   ])
 
   const statusCounts = Object.fromEntries(DECISION_STATUSES.map(s => [s, 0])) as Record<DecisionStatus, number>
@@ -115,6 +117,7 @@ export async function decisionOverview(query: OverviewQuery) {
       pairs: pairs.map(p => ({ engineApproach: p.engineApproach, reviewerApproach: p.reviewerApproach!, count: p.count })),
       disagreedRules: rules,
     },
+    rulesets: { byVersion: byRuleset },
     compute: {
       coreHours: projects.reduce((sum, p) => sum + p.coreHours, 0),
       budgetCoreHours: projects.reduce((sum, p) => sum + p.budgetCoreHours, 0),
