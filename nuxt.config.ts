@@ -17,7 +17,7 @@ export default defineNuxtConfig({
   },
   devtools: { enabled: false },
   telemetry: false,
-  modules: ['@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  modules: ['@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint', 'nuxt-security'],
   eslint: { config: { stylistic: false } },
   css: ['~/assets/css/main.css'],
   vite: { plugins: [tailwindcss()] },
@@ -34,12 +34,58 @@ export default defineNuxtConfig({
     appUrl: 'http://127.0.0.1:3000',
     smtp: { host: '127.0.0.1', port: 1025, user: '', pass: '', from: 'Eddyledger <no-reply@eddyledger.test>', secure: false },
     session: { maxAge: 60 * 60 * 12 },
-    // Failed sign-ins allowed per window before a lock of the same length.
-    loginLimit: { accountFailures: 5, clientFailures: 30, windowMinutes: 15, trustProxy: false },
+    // Sign-in attempts allowed per account from one address, per address, and per account from all
+    // addresses together, before growing waits (delaySeconds, doubling up to the window); see
+    // server/utils/auth/login-limiter.ts. trustProxy: read the client address and protocol from X-Forwarded-*.
+    loginLimit: { accountFailures: 5, clientFailures: 30, accountTotalFailures: 100, windowMinutes: 15, delaySeconds: 30, trustProxy: false },
+    invitationResendsPerHour: 3,
+    // Request bodies: JSON on every write route, files on the declared upload routes (server/utils/http/uploads.ts).
+    bodyLimit: { jsonBytes: 1024 * 1024, uploadBytes: 64 * 1024 * 1024 },
+    // How long a message being sent is leased to one server process (renewed while it lasts).
+    mail: { leaseSeconds: 120 },
     // S3-compatible object storage for uploads (NUXT_STORAGE_*). npm start and npm test point it
     // at a local fake (s3rver); production names a real bucket and, unless the platform provides
     // credentials, its keys.
     storage: { endpoint: '', region: 'us-east-1', bucket: 'eddyledger-uploads', accessKeyId: '', secretAccessKey: '', forcePathStyle: false },
+  },
+  // Security headers (nuxt-security). Our own middleware (server/middleware/00.web-surface.ts) does
+  // the request-side work: cross-site writes, content types, body sizes and HSTS over TLS only.
+  security: {
+    headers: {
+      contentSecurityPolicy: {
+        'default-src': ["'self'"],
+        'base-uri': ["'none'"],
+        'connect-src': ["'self'"],
+        // The fonts are bundled (@fontsource-variable); nothing is loaded from another site.
+        'font-src': ["'self'", 'data:'],
+        'form-action': ["'self'"],
+        'frame-ancestors': ["'none'"],
+        'img-src': ["'self'", 'data:', 'blob:'],
+        'object-src': ["'none'"],
+        'script-src': ["'self'", "'strict-dynamic'", "'nonce-{{nonce}}'"],
+        'script-src-attr': ["'none'"],
+        // Vue renders style attributes (chart heights, transitions): inline styles, never inline scripts.
+        'style-src': ["'self'", "'unsafe-inline'"],
+        'worker-src': ["'self'", 'blob:'],
+        // Plain-HTTP local set-ups must keep working; HTTPS deployments get HSTS instead.
+        'upgrade-insecure-requests': false,
+      },
+      xFrameOptions: 'DENY',
+      referrerPolicy: 'same-origin',
+      // Sent by our middleware, and only over TLS.
+      strictTransportSecurity: false,
+    },
+    // Ours are in server/middleware (413 with the upload routes' own caps; limits in PostgreSQL).
+    requestSizeLimiter: false,
+    rateLimiter: false,
+    // Notes and comments may hold "<" and ">" legitimately; output is escaped and sanitised instead.
+    xssValidator: false,
+    hidePoweredBy: true,
+  },
+  routeRules: {
+    // JSON, CSV and PDF answers are not documents that run scripts; a CSP there only gets in the
+    // way of the browser's PDF viewer.
+    '/api/**': { security: { headers: { contentSecurityPolicy: false } } },
   },
   typescript: { strict: true },
 })

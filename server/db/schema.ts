@@ -42,8 +42,19 @@ export const users = pgTable('users', {
   // Null until an invited user sets a password.
   passwordHash: text('password_hash'),
   active: boolean('active').notNull().default(true),
+  // Sealed into each session at sign-in; raising it ends every session of the user (password
+  // change, deactivation, role change, "sign out everywhere").
+  sessionVersion: integer('session_version').notNull().default(1),
   ...timestamps,
 }, t => [uniqueIndex('users_email_lower_idx').on(sql`lower(${t.email})`)])
+
+// Sessions ended by signing out, until their cookie would have expired anyway: a copy of the
+// cookie stops working too.
+export const revokedSessions = pgTable('revoked_sessions', {
+  id: text('id').primaryKey(),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+}, t => [index('revoked_sessions_expires_idx').on(t.expiresAt)])
 
 export const projects = pgTable('projects', {
   id: serial('id').primaryKey(),
@@ -136,6 +147,9 @@ export const mailOutbox = pgTable('mail_outbox', {
   attempts: integer('attempts').notNull().default(0),
   lastError: text('last_error'),
   nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull().defaultNow(),
+  // The sender that holds the lease (next_attempt_at) on a message being sent; its result is
+  // written only while it still holds it.
+  claimToken: text('claim_token'),
   sentAt: timestamp('sent_at', { withTimezone: true }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [index('mail_outbox_due_idx').on(t.status, t.nextAttemptAt)])

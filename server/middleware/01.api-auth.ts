@@ -4,6 +4,7 @@ const PUBLIC_API = new Set([
   '/api/auth/login',
   '/api/auth/password/forgot',
   '/api/auth/password/set',
+  '/api/health',
 ])
 
 export default defineEventHandler(async (event) => {

@@ -2,6 +2,7 @@
 import { z } from 'zod'
 import { DECISION_STATUSES } from '../utils/decision-status'
 import { projectFilterSchema } from './overview'
+import { INT32_MAX } from './common'
 
 export const AUDIT_MAX_PAGE_SIZE = 50
 
@@ -15,7 +16,7 @@ export type AuditFilter = z.infer<typeof auditFilterSchema>
 
 export const auditListQuerySchema = auditFilterSchema.extend({
   page: z.coerce.number({ invalid_type_error: 'Page must be a number.' }).int('Page must be a whole number.')
-    .min(1, 'Page starts at 1.').default(1),
+    .min(1, 'Page starts at 1.').max(INT32_MAX, `Page is at most ${INT32_MAX}.`).default(1),
   pageSize: z.coerce.number({ invalid_type_error: 'Page size must be a number.' }).int('Page size must be a whole number.')
     .min(1, 'Page size is at least 1.').max(AUDIT_MAX_PAGE_SIZE, `Page size is at most ${AUDIT_MAX_PAGE_SIZE}, so every chain on the page can be checked.`).default(20),
 })

@@ -13,6 +13,7 @@ import {
 import { DECISION_STATUSES } from '../utils/decision-status'
 import { enteredCaseSchema, enteredFromCaseInput, unitSystemSchema, validateCaseForm } from './case-form'
 import { impliedTreatment, requestedChoiceSchema, yPlusConflict } from './requested-choice'
+import { INT32_MAX, positiveInt, storable } from './common'
 
 // A review comment must say why: a sentence, not a tick.
 export const MIN_REVIEW_COMMENT = 15
@@ -22,18 +23,20 @@ export const versionSchema = z.number({
   required_error: 'The version you last saw is required; reload the decision.',
   invalid_type_error: 'The version must be a number.',
 }).int('The version must be a whole number.').positive('The version must be a positive whole number.')
+  .max(INT32_MAX, `The version must be at most ${INT32_MAX}.`)
 
 export const decisionTitleSchema = z.string({ required_error: 'Title is required.', invalid_type_error: 'Title must be text.' })
-  .trim().min(1, 'Title is required.').max(200, 'Title is at most 200 characters.')
+  .trim().min(1, 'Title is required.').max(200, 'Title is at most 200 characters.').refine(...storable('Title'))
 
 const notesSchema = z.string({ invalid_type_error: 'Notes must be text.' })
-  .trim().max(10_000, 'Notes are at most 10,000 characters.')
+  .trim().max(10_000, 'Notes are at most 10,000 characters.').refine(...storable('Notes'))
 
 function commentSchema(what: string, min = 1) {
   return z.string({ required_error: `${what} is required.`, invalid_type_error: `${what} must be text.` })
     .trim()
     .min(min, min > 1 ? `${what} needs at least a sentence (${min} characters or more).` : `${what} is required.`)
     .max(MAX_TEXT, `${what} is at most ${MAX_TEXT} characters.`)
+    .refine(...storable(what))
 }
 
 export const adviceRequestSchema = z.object({ caseInput: caseInputSchema }, { required_error: 'A case input is required.' })
@@ -141,15 +144,15 @@ export const decisionListQuerySchema = z.object({
     errorMap: () => ({ message: `Status must be one of: ${DECISION_STATUSES.join(', ')}.` }),
   }).optional(),
   page: z.coerce.number({ invalid_type_error: 'Page must be a number.' }).int('Page must be a whole number.')
-    .min(1, 'Page starts at 1.').default(1),
+    .min(1, 'Page starts at 1.').max(INT32_MAX, `Page is at most ${INT32_MAX}.`).default(1),
   pageSize: z.coerce.number({ invalid_type_error: 'Page size must be a number.' }).int('Page size must be a whole number.')
     .min(1, 'Page size is at least 1.').max(100, 'Page size is at most 100.').default(20),
 })
 export type DecisionListQuery = z.infer<typeof decisionListQuerySchema>
 
 export const revisionParamsSchema = z.object({
-  id: z.coerce.number({ invalid_type_error: 'The id must be a number' }).int().positive('The id must be a positive whole number'),
-  n: z.coerce.number({ invalid_type_error: 'The revision must be a number' }).int().positive('The revision must be a positive whole number'),
+  id: positiveInt('The id', { coerce: true }),
+  n: positiveInt('The revision', { coerce: true }),
 })
 
 export const submitSchema = z.object({ version: versionSchema })

@@ -1,5 +1,6 @@
 // The team lead's overview query: an optional project and an optional range of creation dates.
 import { z } from 'zod'
+import { INT32_MAX } from './common'
 
 const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/
 
@@ -14,7 +15,8 @@ export function isoDate(what: string) {
 }
 
 export const projectFilterSchema = z.preprocess(blankIsUnset, z.coerce.number({ invalid_type_error: 'The project must be given by its id.' })
-  .int('The project id must be a whole number.').positive('The project id must be a positive whole number.').optional())
+  .int('The project id must be a whole number.').positive('The project id must be a positive whole number.')
+  .max(INT32_MAX, `The project id must be at most ${INT32_MAX}.`).optional())
 
 export const overviewQuerySchema = z.object({
   from: isoDate('From'),

@@ -2,12 +2,12 @@
 import { z } from 'zod'
 import { APPROACH_IDS, APPROACH_LABELS } from '../rules'
 import { HARDWARE } from '../verification/calibration'
+import { positiveInt } from './common'
 
 const MAX_TEXT = 4000
 export const MIN_REASON = 15
 
-const positiveId = (what: string) => z.coerce.number({ invalid_type_error: `The ${what} must be a number` })
-  .int(`The ${what} must be a whole number`).positive(`The ${what} must be a positive whole number`)
+const positiveId = (what: string) => positiveInt(`The ${what}`, { coerce: true })
 
 export const wallCheckParamsSchema = z.object({ id: positiveId('id'), checkId: positiveId('check id') })
 export const gridStudyParamsSchema = z.object({ id: positiveId('id'), studyId: positiveId('study id') })

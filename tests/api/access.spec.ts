@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest'
 import { ApiClient, signIn } from '../support/api-client'
 import { apiRoutes } from '../support/routes'
 
-const PUBLIC = new Set(['/api/auth/login', '/api/auth/password/forgot', '/api/auth/password/set'])
+const PUBLIC = new Set(['/api/auth/login', '/api/auth/password/forgot', '/api/auth/password/set', '/api/health'])
 
 describe('signed-out requests', () => {
   const routes = apiRoutes().filter(r => !PUBLIC.has(r.path))

@@ -1,5 +1,13 @@
-import { describe, expect, it } from 'vitest'
+import pg from 'pg'
+import { describe, expect, inject, it } from 'vitest'
 import { ApiClient, demoEmail, signIn } from '../support/api-client'
+
+async function withDb<T>(run: (client: pg.Client) => Promise<T>) {
+  const client = new pg.Client({ connectionString: inject('databaseUrl') })
+  await client.connect()
+  try { return await run(client) }
+  finally { await client.end() }
+}
 
 describe('sign-in', () => {
   it('signs a demo engineer in and reports who is signed in', async () => {
@@ -55,21 +63,124 @@ describe('sign-in', () => {
   })
 })
 
-describe('login limiter', () => {
-  it('answers 429 with Retry-After after repeated failures on one account', async () => {
+describe('ending sessions', () => {
+  /** A second client holding a copy of the first one's cookie, as a thief would. */
+  function copyOf(client: ApiClient) {
+    const copy = new ApiClient()
+    copy.cookie = client.cookie
+    return copy
+  }
+
+  async function userId(admin: ApiClient, key: string) {
+    const users = (await admin.get('/api/users')).body.users as { id: number; email: string }[]
+    return users.find(u => u.email === demoEmail(key))!.id
+  }
+
+  it('signing out ends a copy of the cookie too, through our route and the session endpoint', async () => {
+    for (const signOut of [(c: ApiClient) => c.post('/api/auth/logout'), (c: ApiClient) => c.delete('/api/_auth/session')]) {
+      const client = await signIn('engineer')
+      const stolen = copyOf(client)
+      expect((await stolen.get('/api/auth/me')).status).toBe(200)
+      expect((await signOut(client)).status).toBe(200)
+      const after = await stolen.get('/api/auth/me')
+      expect(after.status).toBe(401)
+      expect(after.body.message).toMatch(/session has ended/i)
+    }
+    // Other sessions of the same person go on.
+    const phone = await signIn('engineer')
+    const laptop = await signIn('engineer')
+    await laptop.post('/api/auth/logout')
+    expect((await phone.get('/api/auth/me')).status).toBe(200)
+  })
+
+  it('"sign out everywhere" ends every session of the person, and only theirs', async () => {
+    const phone = await signIn('lead')
+    const laptop = await signIn('lead')
+    const someoneElse = await signIn('auditor')
+    const res = await laptop.post('/api/auth/sign-out-everywhere')
+    expect(res.status).toBe(200)
+    expect((await phone.get('/api/auth/me')).status).toBe(401)
+    expect((await laptop.get('/api/auth/me')).status).toBe(401)
+    expect((await someoneElse.get('/api/auth/me')).status).toBe(200)
+    // Signing in again works at once.
+    expect((await (await signIn('lead')).get('/api/auth/me')).status).toBe(200)
+  })
+
+  it('a deactivation ends the sessions for good: reactivating does not revive an old cookie', async () => {
     const admin = await signIn('admin')
-    const email = 'limiter.target@eddyledger.test'
-    expect((await admin.post('/api/users', { email, name: 'Limiter Target', role: 'engineer' })).status).toBe(201)
+    const id = await userId(admin, 'engineer2')
+    const session = await signIn('engineer2')
+    const stolen = copyOf(session)
+    expect((await admin.patch(`/api/users/${id}`, { active: false })).status).toBe(200)
+    expect((await admin.patch(`/api/users/${id}`, { active: true })).status).toBe(200)
+    expect((await stolen.get('/api/auth/me')).status).toBe(401)
+    expect((await session.get('/api/auth/me')).status).toBe(401)
+    expect((await (await signIn('engineer2')).get('/api/auth/me')).status).toBe(200)
+  })
+
+  it('a role change ends the sessions; a change of name does not', async () => {
+    const admin = await signIn('admin')
+    const id = await userId(admin, 'reviewer2')
+    const session = await signIn('reviewer2')
+    expect((await admin.patch(`/api/users/${id}`, { name: 'Jonah Okafor' })).status).toBe(200)
+    expect((await session.get('/api/auth/me')).status).toBe(200)
+    // The same role again is no change.
+    expect((await admin.patch(`/api/users/${id}`, { role: 'reviewer' })).status).toBe(200)
+    expect((await session.get('/api/auth/me')).status).toBe(200)
+    expect((await admin.patch(`/api/users/${id}`, { role: 'engineer' })).status).toBe(200)
+    expect((await session.get('/api/auth/me')).status).toBe(401)
+    expect((await admin.patch(`/api/users/${id}`, { role: 'reviewer' })).status).toBe(200)
+    expect((await (await signIn('reviewer2')).get('/api/auth/me')).body.user.role).toBe('reviewer')
+  })
+})
+
+describe('login limiter', () => {
+  const PASSWORD = process.env.DEMO_PASSWORD || 'ledger-demo-2026'
+
+  it('makes one address wait after 5 wrong passwords on an account, without locking the owner out', async () => {
+    const attacker = new ApiClient()
     const statuses: number[] = []
     for (let i = 0; i < 6; i++) {
-      // A new client address each time: the account counter alone must trip.
-      statuses.push((await new ApiClient().post('/api/auth/login', { email, password: `wrong-${i}` })).status)
+      statuses.push((await attacker.post('/api/auth/login', { email: demoEmail('lead'), password: `wrong-${i}` })).status)
     }
-    expect(statuses.slice(0, 5)).toEqual([401, 401, 401, 401, 401])
-    const locked = await new ApiClient().post('/api/auth/login', { email, password: 'wrong-again' })
+    expect(statuses).toEqual([401, 401, 401, 401, 401, 429])
+    const locked = await attacker.post('/api/auth/login', { email: demoEmail('lead'), password: PASSWORD })
     expect(locked.status).toBe(429)
-    expect(Number(locked.headers.get('retry-after'))).toBeGreaterThan(60)
-    expect(locked.body.message).toMatch(/try again in \d+ minute/i)
+    expect(Number(locked.headers.get('retry-after'))).toBeGreaterThan(0)
+    expect(locked.body.message).toMatch(/too many failed sign-ins\. try again in \d+ (second|minute)s?/i)
+    // The owner, from another address, signs in as usual.
+    await signIn('lead')
+  })
+
+  it('checks only 5 of 100 simultaneous guesses, and refuses the right password after them', async () => {
+    const attacker = new ApiClient()
+    const results = await Promise.all(Array.from({ length: 100 }, (_, i) =>
+      attacker.post('/api/auth/login', { email: demoEmail('auditor'), password: `guess-${i}-wrong` })))
+    const statuses = results.map(r => r.status)
+    // Each attempt is counted before its password is checked: only the first 5 reach the check.
+    expect(statuses.filter(s => s === 401).length).toBe(5)
+    expect(statuses.filter(s => s === 429).length).toBe(95)
+    const right = await attacker.post('/api/auth/login', { email: demoEmail('auditor'), password: PASSWORD })
+    expect(right.status).toBe(429)
+  })
+
+  it('doubles the wait with each further failure once it has run out', async () => {
+    const attacker = new ApiClient()
+    const email = demoEmail('reviewer2')
+    for (let i = 0; i < 5; i++) await attacker.post('/api/auth/login', { email, password: `wrong-${i}` })
+    const first = await attacker.post('/api/auth/login', { email, password: 'wrong-5' })
+    expect(first.status).toBe(429)
+    const firstWait = Number(first.headers.get('retry-after'))
+    expect(firstWait).toBeGreaterThan(20)
+    expect(firstWait).toBeLessThanOrEqual(30)
+    // Let the wait run out (in the database, rather than sleep through it).
+    await withDb(db => db.query(`UPDATE login_attempts SET locked_until = now() - interval '1 second' WHERE key = $1`,
+      [`pair:${email}|${attacker.address}`]))
+    expect((await attacker.post('/api/auth/login', { email, password: 'wrong-6' })).status).toBe(401)
+    const second = await attacker.post('/api/auth/login', { email, password: 'wrong-7' })
+    expect(second.status).toBe(429)
+    expect(Number(second.headers.get('retry-after'))).toBeGreaterThan(50)
+    expect(Number(second.headers.get('retry-after'))).toBeLessThanOrEqual(60)
   })
 
   it('answers 429 to a client address that fails on many accounts', async () => {
@@ -79,10 +190,23 @@ describe('login limiter', () => {
       last = (await client.post('/api/auth/login', { email: `nobody${i}@eddyledger.test`, password: 'whatever-it-is' })).status
     }
     expect(last).toBe(429)
-    // Even the right password is refused from that address while it is locked.
-    const right = await client.post('/api/auth/login', { email: demoEmail('auditor'), password: process.env.DEMO_PASSWORD || 'ledger-demo-2026' })
+    // Even the right password is refused from that address while it waits.
+    const right = await client.post('/api/auth/login', { email: demoEmail('auditor'), password: PASSWORD })
     expect(right.status).toBe(429)
     // Another address is not affected.
     await signIn('auditor')
+  })
+
+  it('slows a guess spread over many addresses on one account', async () => {
+    const email = `spread.${Date.now().toString(36)}@eddyledger.test`
+    const statuses: number[] = []
+    for (let round = 0; round < 10; round++) {
+      const batch = await Promise.all(Array.from({ length: 10 }, () =>
+        new ApiClient().post('/api/auth/login', { email, password: 'spread-guess-1' })))
+      statuses.push(...batch.map(r => r.status))
+    }
+    expect(statuses.every(s => s === 401)).toBe(true)
+    const next = await new ApiClient().post('/api/auth/login', { email, password: 'spread-guess-2' })
+    expect(next.status).toBe(429)
   })
 })

@@ -2,6 +2,7 @@
 // (maildev, started by scripts/test.sh), and we read the catcher's inbox over its REST API.
 import { createHash } from 'node:crypto'
 import pg from 'pg'
+import { SMTPServer } from 'smtp-server'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient, demoEmail, signIn } from '../support/api-client'
 import { freePort, startServer } from '../support/test-server'
@@ -141,6 +142,40 @@ describe('invitations', () => {
     expect((await admin.post('/api/users/abc/invitation')).status).toBe(400)
   })
 
+  it('refuses a weak or common password with the reason, and keeps the link usable', async () => {
+    const { mail } = await invite(admin, 'Lena Voss')
+    const token = linkToken(mail.text)
+    const cases: [string, RegExp][] = [
+      ['aaaaaaaaaa', /repeated character/],
+      ['password12', /commonly used password/],
+      ['qwertyuiop', /most used passwords/],
+      ['abcdefghij', /sequence/],
+      ['eddyledger2026', /your name, your e-mail address or the name of this product/],
+    ]
+    for (const [password, reason] of cases) {
+      const res = await new ApiClient().post('/api/auth/password/set', { token, password })
+      expect(res.status, password).toBe(400)
+      expect(res.body.message, password).toMatch(/too easy to guess/)
+      expect(res.body.data.fieldErrors.password[0], password).toMatch(reason)
+    }
+    // None of the refusals used up the link.
+    expect((await new ApiClient().post('/api/auth/password/set', { token, password: 'tidal-basin-lantern-42' })).status).toBe(200)
+  })
+
+  it('sends an invitation again at most 3 times an hour per person, then answers 429 with Retry-After', async () => {
+    const { user } = await invite(admin)
+    const statuses: number[] = []
+    for (let i = 0; i < 4; i++) statuses.push((await admin.post(`/api/users/${user.id}/invitation`)).status)
+    expect(statuses).toEqual([200, 200, 200, 429])
+    const limited = await admin.post(`/api/users/${user.id}/invitation`)
+    expect(limited.status).toBe(429)
+    expect(Number(limited.headers.get('retry-after'))).toBeGreaterThan(50 * 60)
+    expect(limited.body.message).toMatch(/too many invitations sent to this person\. try again in \d+ minutes/i)
+    // Another person's invitation is not held up.
+    const other = await invite(admin)
+    expect((await admin.post(`/api/users/${other.user.id}/invitation`)).status).toBe(200)
+  })
+
   it('lets one of two simultaneous uses of a link win', async () => {
     const { mail } = await invite(admin)
     const token = linkToken(mail.text)
@@ -199,6 +234,25 @@ describe('forgotten password', () => {
     expect(limited.body.message).toMatch(/too many password reset requests/i)
     expect(Number(limited.headers.get('retry-after'))).toBeGreaterThan(60)
     expect((await new ApiClient().post('/api/auth/login', { email, password: 'steady-password-1' })).status).toBe(200)
+  })
+
+  it('a new password ends every session signed in with the old one', async () => {
+    const { email, mail } = await invite(admin)
+    const first = new ApiClient()
+    expect((await first.post('/api/auth/password/set', { token: linkToken(mail.text), password: 'old-harbour-pass-1' })).status).toBe(200)
+    const second = new ApiClient()
+    await second.login(email, 'old-harbour-pass-1')
+    const stolen = new ApiClient()
+    stolen.cookie = second.cookie
+    expect((await stolen.get('/api/auth/me')).status).toBe(200)
+
+    expect((await new ApiClient().post('/api/auth/password/forgot', { email })).status).toBe(200)
+    const [reset] = await waitForMail(m => sentTo(m, email) && /reset/i.test(m.subject))
+    const resetter = new ApiClient()
+    expect((await resetter.post('/api/auth/password/set', { token: linkToken(reset!.text), password: 'new-harbour-pass-2' })).status).toBe(200)
+
+    for (const old of [first, second, stolen]) expect((await old.get('/api/auth/me')).status).toBe(401)
+    expect((await resetter.get('/api/auth/me')).body.user.email).toBe(email)
   })
 
   it('answers a malformed address with 400', async () => {
@@ -340,6 +394,79 @@ describe('two server processes on one database', () => {
       `SELECT status, attempts, count(*)::int AS n FROM mail_outbox WHERE subject LIKE $1 GROUP BY 1, 2`, [`Pair ${batch}%`]))
     expect(states.rows).toEqual([{ status: 'sent', attempts: 1, n: count + 2 }])
   }, 90_000)
+})
+
+describe('two server processes and a slow relay', () => {
+  const servers: Awaited<ReturnType<typeof startServer>>[] = []
+  let relay: SMTPServer | undefined
+  afterAll(async () => {
+    await Promise.all(servers.map(s => s.stop()))
+    await new Promise<void>(resolve => (relay ? relay.close(() => resolve()) : resolve()))
+  })
+
+  it('send each message once although every send outlasts the lease', async () => {
+    // A relay that takes 2.5 s to accept each message, against a 1 s lease: each send must keep
+    // renewing its lease, or the other process would claim the message and send it again.
+    const ANSWER_DELAY_MS = 2500
+    const received: string[] = []
+    relay = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ['STARTTLS'],
+      logger: false,
+      onData(stream, _session, callback) {
+        let raw = ''
+        stream.on('data', (chunk: Buffer) => { raw += chunk.toString('utf8') })
+        stream.on('end', () => {
+          received.push(raw.match(/^Subject: (.*)$/m)?.[1]?.trim() ?? '?')
+          setTimeout(() => callback(), ANSWER_DELAY_MS)
+        })
+      },
+    })
+    const relayPort = await freePort()
+    await new Promise<void>(resolve => relay!.listen(relayPort, '127.0.0.1', () => resolve()))
+
+    const database = 'eddyledger_mail_slow'
+    const env = { NUXT_SMTP_PORT: String(relayPort), NUXT_MAIL_LEASE_SECONDS: '1' }
+    servers.push(await startServer({ database, port: await freePort(), env }))
+    servers.push(await startServer({ database, port: await freePort(), env, keepDatabase: true }))
+    const batch = unique()
+    const count = 8
+    // Due messages written straight into the outbox, and one failed message per server whose retry
+    // starts a delivery round on both at the same moment.
+    const failedIds = await withDb(servers[0]!.databaseUrl, async (db) => {
+      await db.query(`
+        INSERT INTO mail_outbox (to_address, subject, text, kind)
+        SELECT 'slow.' || n || '@eddyledger.test', $1 || ' #' || n, 'Delivery check.', 'invite'
+        FROM generate_series(1, ${count}) n`, [`Slow ${batch}`])
+      const { rows } = await db.query(`
+        INSERT INTO mail_outbox (to_address, subject, text, kind, status, attempts)
+        VALUES ('slow.a@eddyledger.test', $1, 'Retry check.', 'invite', 'failed', 8),
+               ('slow.b@eddyledger.test', $2, 'Retry check.', 'invite', 'failed', 8)
+        RETURNING id`, [`Slow ${batch} retry a`, `Slow ${batch} retry b`])
+      return rows.map(r => r.id as number)
+    })
+    const admins = await Promise.all(servers.map(async (server) => {
+      const c = new ApiClient(server.url)
+      await c.login(demoEmail('admin'))
+      return c
+    }))
+    const retries = await Promise.all(admins.map((c, i) => c.post(`/api/admin/mail/${failedIds[i]}/retry`)))
+    expect(retries.map(r => r.status)).toEqual([200, 200])
+
+    const total = count + 2
+    const mine = () => received.filter(subject => subject.startsWith(`Slow ${batch}`))
+    await until('every message at the relay', async () => (mine().length >= total ? true : undefined), 60_000)
+    // Several leases' time more for a second copy to show up, were one on its way.
+    await new Promise(r => setTimeout(r, ANSWER_DELAY_MS + 3000))
+    expect(mine().length).toBe(total)
+    expect(new Set(mine()).size).toBe(total)
+    const states = await until('every message marked sent', async () => {
+      const { rows } = await withDb(servers[0]!.databaseUrl, db => db.query(
+        `SELECT status, attempts, count(*)::int AS n FROM mail_outbox WHERE subject LIKE $1 GROUP BY 1, 2`, [`Slow ${batch}%`]))
+      return rows.length === 1 && rows[0].status === 'sent' ? rows : undefined
+    })
+    expect(states).toEqual([{ status: 'sent', attempts: 1, n: total }])
+  }, 120_000)
 })
 
 describe('review notices', () => {

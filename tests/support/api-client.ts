@@ -23,6 +23,8 @@ export class ApiClient {
       headers: {
         accept: 'application/json',
         'x-forwarded-for': this.address,
+        // As a browser does for a write from our own pages (the server refuses other origins).
+        ...(method !== 'GET' && method !== 'HEAD' ? { origin: this.baseUrl } : {}),
         ...(body !== undefined ? { 'content-type': 'application/json' } : {}),
         ...(this.cookie ? { cookie: this.cookie } : {}),
         ...headers,

@@ -21,7 +21,7 @@ export async function signInAs(page: Page, key: string) {
 }
 
 export async function signOut(page: Page) {
-  await page.getByRole('button', { name: 'Sign out' }).click()
+  await page.getByRole('button', { name: 'Sign out', exact: true }).click()
   await expect(page).toHaveURL(/\/login/)
 }
 

@@ -18,9 +18,8 @@ export function apiRoutes() {
     const rel = relative(API_DIR, file).replace(/\.ts$/, '')
     const parts = rel.split('.')
     const method = (METHODS as readonly string[]).includes(parts.at(-1)!) ? parts.pop()!.toUpperCase() : 'GET'
-    const path = '/api/' + parts.join('.')
-      .replace(/(^|\/)index$/, '')
-      .replace(/\[[^\]]+\]/g, '1')
-    return { method, path: path.replace(/\/$/, ''), file: rel }
+    // The path with its parameters as written ("/api/decisions/[id]/approve"), and filled with 1.
+    const template = ('/api/' + parts.join('.').replace(/(^|\/)index$/, '')).replace(/\/$/, '')
+    return { method, path: template.replace(/\[[^\]]+\]/g, '1'), template, file: rel }
   })
 }

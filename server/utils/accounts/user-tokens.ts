@@ -4,7 +4,7 @@ import { and, eq, isNull, sql } from 'drizzle-orm'
 import { ROLE_LABELS } from '#shared/utils/roles'
 import type { DbOrTx } from '../../db/types'
 import { findUserByEmail } from './lookup'
-import { assertNotLocked, loginKeys, recordLoginFailure } from '../auth/login-limiter'
+import { clientAddress, countAttempt, refuseTooMany } from '../auth/login-limiter'
 import { MAIL_CAUTIONS, enqueueMail, kickMailDelivery } from '../mail/outbox'
 import { tables, useDb } from '../db'
 
@@ -115,9 +115,11 @@ export async function setPasswordWithToken(token: string, passwordHash: string) 
       RETURNING id, user_id`)
     const claimed = rows[0]
     if (!claimed) throw createError({ statusCode: 400, message: INVALID_LINK_MESSAGE })
-    const [user] = await tx.update(tables.users).set({ passwordHash, updatedAt: new Date() })
+    // A new password ends every session signed in with the old one.
+    const [user] = await tx.update(tables.users)
+      .set({ passwordHash, sessionVersion: sql`${tables.users.sessionVersion} + 1`, updatedAt: new Date() })
       .where(and(eq(tables.users.id, claimed.user_id), eq(tables.users.active, true)))
-      .returning({ id: tables.users.id, email: tables.users.email, name: tables.users.name, role: tables.users.role })
+      .returning({ id: tables.users.id, email: tables.users.email, name: tables.users.name, role: tables.users.role, sessionVersion: tables.users.sessionVersion })
     // A deactivated account: the transaction rolls back and the link stays as it was.
     if (!user) throw createError({ statusCode: 400, message: 'This account is deactivated; ask an administrator' })
     await tx.update(tables.userTokens).set({ usedAt: new Date() })
@@ -126,26 +128,24 @@ export async function setPasswordWithToken(token: string, passwordHash: string) 
   })
 }
 
+/** Who a still-usable link belongs to (to judge the new password against their name), or undefined. */
+export async function findTokenHolder(token: string) {
+  const { rows } = await useDb().execute<{ email: string; name: string }>(sql`
+    SELECT u.email, u.name FROM user_tokens t JOIN users u ON u.id = t.user_id
+    WHERE t.token_hash = ${hashToken(token)} AND t.used_at IS NULL AND t.expires_at > now()`)
+  return rows[0]
+}
+
 /**
- * Reset requests count against the login limiter's table and limits under keys of their own, so a
- * flood of requests cannot fill an inbox, and cannot lock anyone out of signing in either.
+ * Reset requests are counted in the login limiter's table under keys of their own (5 per address
+ * to reset, 30 per client, per window), so a flood of requests cannot fill an inbox, and cannot
+ * lock anyone out of signing in either.
  */
 export async function limitPasswordResetRequests(event: H3Event, email: string) {
-  const keys = loginKeys(event, email)
-  const resetKeys = { account: `reset-${keys.account}`, client: `reset-${keys.client}` }
-  try {
-    await assertNotLocked(event, resetKeys)
-  }
-  catch (error) {
-    const e = error as { statusCode?: number; data?: { retryAfterSeconds?: number } }
-    if (e.statusCode !== 429) throw error
-    const minutes = Math.ceil((e.data?.retryAfterSeconds ?? 60) / 60)
-    throw createError({
-      statusCode: 429,
-      statusMessage: 'Too Many Requests',
-      message: `Too many password reset requests. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
-      data: e.data,
-    })
-  }
-  await recordLoginFailure(resetKeys)
+  const c = useRuntimeConfig().loginLimit
+  const wait = await countAttempt([
+    { key: `reset-account:${email.toLowerCase()}`, limit: Number(c.accountFailures), lock: 'window' },
+    { key: `reset-client:${clientAddress(event)}`, limit: Number(c.clientFailures), lock: 'window' },
+  ])
+  if (wait !== undefined) refuseTooMany(event, wait, 'password reset requests')
 }

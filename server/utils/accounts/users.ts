@@ -5,6 +5,7 @@ import { findUserByEmail } from './lookup'
 import { queueInvitation } from './user-tokens'
 import { kickMailDelivery } from '../mail/outbox'
 import { tables, useDb } from '../db'
+import { sessionVersionOnAccessChange } from '../auth/session-version'
 
 // The public shape of a user: never the password hash.
 export const publicUserColumns = {
@@ -66,7 +67,7 @@ export async function updateUser(id: number, body: UserUpdateBody, actorId: numb
   if (id === actorId && (body.active === false || (body.role && body.role !== 'admin'))) {
     throw createError({ statusCode: 409, message: 'You cannot deactivate yourself or drop your own admin role' })
   }
-  const [user] = await useDb().update(tables.users).set({ ...body, updatedAt: new Date() })
+  const [user] = await useDb().update(tables.users).set({ ...body, ...sessionVersionOnAccessChange(body), updatedAt: new Date() })
     .where(eq(tables.users.id, id)).returning(publicUserColumns)
   if (!user) throw notFound(`User ${id} does not exist`)
   return user

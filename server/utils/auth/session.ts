@@ -1,20 +1,20 @@
 import type { H3Event } from 'h3'
-import { eq } from 'drizzle-orm'
 import type { Role } from '#shared/utils/roles'
 import type { SessionUser } from '#shared/types/session'
-import { tables, useDb } from '../db'
+import { findSessionUser } from './session-version'
 
 /**
  * The signed-in user, re-read from the database so that a role change or a deactivation takes
- * effect on the next request, not when the cookie expires.
+ * effect on the next request, not when the cookie expires; a session that was signed out, or is
+ * older than the user's session version, has ended (./session-version.ts).
  */
 export async function requireUser(event: H3Event): Promise<SessionUser> {
   if (event.context.user) return event.context.user as SessionUser
   const session = await getUserSession(event)
   const id = session.user?.id
   if (!id) throw createError({ statusCode: 401, message: 'Sign in to continue' })
-  const row = await useDb().query.users.findFirst({ where: eq(tables.users.id, id) })
-  if (!row || !row.active) {
+  const row = await findSessionUser(session)
+  if (!row) {
     await clearUserSession(event)
     throw createError({ statusCode: 401, message: 'Your session has ended; sign in again' })
   }

@@ -1,4 +1,5 @@
 import type { z } from 'zod'
+import { UNSTORABLE_TEXT_MESSAGE, findUnstorableText } from '#shared/schemas/common'
 
 /**
  * A validator for h3's readValidatedBody / getValidatedQuery / getValidatedRouterParams that turns a
@@ -7,6 +8,12 @@ import type { z } from 'zod'
  */
 export function zodValidator<T extends z.ZodTypeAny>(schema: T) {
   return (data: unknown): z.output<T> => {
+    // Any string, even one a schema would drop or not look at, that the database could not store.
+    const unstorable = findUnstorableText(data)
+    if (unstorable) {
+      const key = (unstorable.slice(0, 8).join('.') + (unstorable.length > 8 ? '...' : '')) || '_form'
+      throw { message: `${key}: ${UNSTORABLE_TEXT_MESSAGE}`, fieldErrors: { [key]: [UNSTORABLE_TEXT_MESSAGE] } }
+    }
     const result = schema.safeParse(data)
     if (result.success) return result.data
     const fieldErrors: Record<string, string[]> = {}

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto'
 import nodemailer, { type Transporter } from 'nodemailer'
 import { CAUTION_SUMMARY } from '#shared/rules/cautions'
 import { notFound } from '../http/errors'
@@ -20,9 +21,16 @@ export const MAIL_CAUTIONS = CAUTION_SUMMARY
 const BASE_DELAY_SECONDS = 30
 const MAX_DELAY_SECONDS = 3600
 export const MAX_ATTEMPTS = 8
-// A claimed row is leased for this long, so a process that dies mid-send does not strand it.
-const LEASE_SECONDS = 120
 const BATCH = 20
+
+// A message is claimed on its own just before it is sent, and leased (next_attempt_at moved
+// forward) for runtimeConfig.mail.leaseSeconds; the lease is renewed while the relay takes its
+// time, so no other process sends it meanwhile. A process that dies mid-send stops renewing and
+// the message is retried after the lease runs out. The result is written only under the claim
+// token, so a sender that lost its lease cannot overwrite the new holder's outcome.
+function leaseSeconds() {
+  return Math.max(1, Number(useRuntimeConfig().mail?.leaseSeconds) || 120)
+}
 
 export function retryDelaySeconds(attempts: number) {
   return Math.min(BASE_DELAY_SECONDS * 2 ** Math.max(0, attempts - 1), MAX_DELAY_SECONDS)
@@ -73,7 +81,7 @@ export async function enqueueMail(tx: DbOrTx, mail: { to: string; subject: strin
   return row!.id
 }
 
-type OutboxRow = { id: number; to_address: string; subject: string; text: string; attempts: number }
+type OutboxRow = { id: number; to_address: string; subject: string; text: string; attempts: number; claim_token: string }
 
 // An error as it may be shown to an admin: the message only, never credentials.
 function describeError(error: unknown) {
@@ -84,42 +92,64 @@ function describeError(error: unknown) {
   return message.slice(0, 500)
 }
 
-/**
- * Sends the messages that are due. Rows are claimed with FOR UPDATE SKIP LOCKED and leased by moving
- * their next attempt forward, so several server processes never send one message twice.
- */
-export async function deliverDueMail(limit = BATCH) {
-  const db = useDb()
-  const { rows } = await db.execute<OutboxRow>(sql`
-    UPDATE mail_outbox SET next_attempt_at = now() + make_interval(secs => ${LEASE_SECONDS})
-    WHERE id IN (
+/** Claims the next due message for this sender, with a fresh claim token; undefined when none is due. */
+async function claimNext(): Promise<OutboxRow | undefined> {
+  const token = randomUUID()
+  const { rows } = await useDb().execute<OutboxRow>(sql`
+    UPDATE mail_outbox SET next_attempt_at = now() + make_interval(secs => ${leaseSeconds()}::float8), claim_token = ${token}
+    WHERE id = (
       SELECT id FROM mail_outbox
       WHERE status = 'pending' AND next_attempt_at <= now()
       ORDER BY next_attempt_at, id
-      LIMIT ${limit}
+      LIMIT 1
       FOR UPDATE SKIP LOCKED)
-    RETURNING id, to_address, subject, text, attempts`)
-  if (!rows.length) return { sent: 0, failed: 0 }
+    RETURNING id, to_address, subject, text, attempts, claim_token`)
+  return rows[0]
+}
 
+/** Keeps the lease on a message while it is being sent; stop() when the send has ended. */
+function holdLease(row: OutboxRow) {
+  const renew = () => useDb().execute(sql`
+    UPDATE mail_outbox SET next_attempt_at = now() + make_interval(secs => ${leaseSeconds()}::float8)
+    WHERE id = ${row.id} AND claim_token = ${row.claim_token} AND status = 'pending'`)
+    .catch(error => console.error(`[mail] could not renew the lease on message ${row.id}: ${describeError(error)}`))
+  const timer = setInterval(renew, (leaseSeconds() * 1000) / 3)
+  return { stop: () => clearInterval(timer) }
+}
+
+/**
+ * Sends the messages that are due, one claim at a time, so several server processes never send
+ * one message twice, however slow the relay.
+ */
+export async function deliverDueMail(limit = BATCH) {
+  const db = useDb()
+  const m = tables.mailOutbox
   const { from } = smtpConfig()
   let sent = 0
   let failed = 0
-  for (const row of rows) {
+  for (let i = 0; i < limit; i++) {
+    const row = await claimNext()
+    if (!row) break
+    const held = eq(m.claimToken, row.claim_token)
+    const lease = holdLease(row)
     try {
       await useTransport().sendMail({ from, to: row.to_address, subject: row.subject, text: row.text })
-      await db.update(tables.mailOutbox)
-        .set({ status: 'sent', sentAt: new Date(), attempts: row.attempts + 1, lastError: null })
-        .where(eq(tables.mailOutbox.id, row.id))
+      lease.stop()
+      await db.update(m)
+        .set({ status: 'sent', sentAt: new Date(), attempts: row.attempts + 1, lastError: null, claimToken: null })
+        .where(and(eq(m.id, row.id), held))
       sent++
     }
     catch (error) {
+      lease.stop()
       const attempts = row.attempts + 1
-      await db.update(tables.mailOutbox).set({
+      await db.update(m).set({
         attempts,
         lastError: describeError(error),
         status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending',
         nextAttemptAt: new Date(Date.now() + retryDelaySeconds(attempts) * 1000),
-      }).where(eq(tables.mailOutbox.id, row.id))
+        claimToken: null,
+      }).where(and(eq(m.id, row.id), held))
       failed++
     }
   }
