@@ -4,9 +4,9 @@ import { keepScreenshot, signInAs, signOut } from '../support/e2e'
 const NAV: Record<string, string[]> = {
   engineer: ['Projects'],
   reviewer: ['Review queue', 'Projects'],
-  auditor: ['Audit', 'Overview', 'Projects'],
-  lead: ['Overview', 'Audit', 'Projects'],
-  admin: ['Projects', 'Users', 'Manage projects', 'Mail'],
+  auditor: ['Audit', 'Ledger', 'Overview', 'Projects'],
+  lead: ['Overview', 'Audit', 'Ledger', 'Calibration', 'Projects'],
+  admin: ['Projects', 'Users', 'Manage projects', 'Mail', 'Ledger'],
 }
 // Each role lands where its work waits.
 const LANDING: Record<string, RegExp> = {
