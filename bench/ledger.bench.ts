@@ -10,6 +10,7 @@ import { performance } from 'node:perf_hooks'
 import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import { advise, caseInputSchema } from '../shared/rules'
+import { enteredFromCaseInput } from '../shared/schemas/case-form'
 import { changeDecision, insertDecision } from '../server/utils/decisions/record'
 import { GENESIS_HASH, canonicalHash, eventHash } from '../server/db/event-chain'
 import { ledgerEntryHash, ledgerHead, type LedgerFields } from '../server/db/ledger'
@@ -51,7 +52,8 @@ const projects = (await ownerDb.select().from(schema.projects)).map(p => p.id)
 const cases = [FERRY_HULL, DATA_HALL_DUCT, CONDENSER_WAKE, PUMP_INTAKE].map((raw) => {
   const caseInput = JSON.parse(JSON.stringify(caseInputSchema.parse(raw)))
   const advice = JSON.parse(JSON.stringify(advise(caseInput)))
-  return { caseInput, advice, inputHash: canonicalHash(caseInput) }
+  const entered = JSON.parse(JSON.stringify(enteredFromCaseInput(caseInput, 'si')))
+  return { caseInput, entered, advice, inputHash: canonicalHash(caseInput) }
 })
 
 async function nextIds(sequence: string, count: number) {
@@ -81,14 +83,14 @@ async function generate() {
     for (let i = 0; i < count; i++) {
       const id = decisionIds[i]!
       const at = new Date(start + (done + i) * 1000)
-      const { caseInput, advice, inputHash } = cases[(done + i) % cases.length]!
+      const { caseInput, entered, advice, inputHash } = cases[(done + i) % cases.length]!
       const title = `Bench case ${done + i + 1}`
       decisions.push({
         id, projectId: projects[(done + i) % projects.length]!, title, status: 'approved', version: 3, currentRevision: 1,
         authorId: engineer.id, createdAt: at, updatedAt: at,
       })
       const revision = {
-        id: revisionIds[i]!, decisionId: id, revision: 1, caseInput, advice, notes: '', inputHash,
+        id: revisionIds[i]!, decisionId: id, revision: 1, caseInput, unitSystem: 'si' as const, entered, requested: null, advice, notes: '', inputHash,
         rulesetId: advice.ruleset.id, rulesetVersion: advice.ruleset.version, engineVersion: advice.engineVersion, createdBy: engineer.id, createdAt: at,
       }
       revisions.push(revision)
