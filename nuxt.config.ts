@@ -47,6 +47,18 @@ export default defineNuxtConfig({
     // at a local fake (s3rver); production names a real bucket and, unless the platform provides
     // credentials, its keys.
     storage: { endpoint: '', region: 'us-east-1', bucket: 'eddyledger-uploads', accessKeyId: '', secretAccessKey: '', forcePathStyle: false },
+    // The ledger (server/utils/ledger): the signing key (PEM or base64 PKCS #8; else the key file),
+    // retired public keys trusted besides it, and the checkpoint and verification schedule.
+    ledger: {
+      signingKey: '',
+      keyFile: '.secrets/ledger-signing-key',
+      trustedKeys: '',
+      keyringFile: '.secrets/ledger-public-keys',
+      checkpointEvery: 100,
+      checkpointMinutes: 60,
+      pollSeconds: 30,
+      verifyMinutes: 60,
+    },
   },
   // Security headers (nuxt-security). Our own middleware (server/middleware/00.web-surface.ts) does
   // the request-side work: cross-site writes, content types, body sizes and HSTS over TLS only.

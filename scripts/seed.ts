@@ -8,8 +8,9 @@ import pg from 'pg'
 import * as schema from '../server/db/schema'
 import { seedDemo } from '../server/db/seed-demo'
 
-const url = process.env.DATABASE_URL ?? process.env.NUXT_DATABASE_URL
-if (!url) throw new Error('DATABASE_URL is not set')
+// As the owner: a reseed drops and recreates the schema.
+const url = process.env.DATABASE_OWNER_URL || process.env.DATABASE_URL || process.env.NUXT_DATABASE_URL
+if (!url) throw new Error('DATABASE_OWNER_URL (or DATABASE_URL) is not set')
 const force = process.argv.includes('--force')
 const password = process.env.DEMO_PASSWORD || 'ledger-demo-2026'
 

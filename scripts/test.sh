@@ -13,19 +13,24 @@ ensure_node_modules
 PG_DIR="$(pg_home ".pg-test$SLOT_SUFFIX")"
 PG_PORT="$(free_port)"
 stop_cluster "$PG_DIR"; rm -rf "$PG_DIR"
+TEST_TMP="$(mktemp -d /tmp/eddyledger-test$SLOT_SUFFIX.XXXXXX)"
 pids=()
 cleanup() {
   for p in "${pids[@]}"; do kill "$p" 2>/dev/null || true; done
-  stop_cluster "$PG_DIR"; rm -rf "$PG_DIR"
+  stop_cluster "$PG_DIR"; rm -rf "$PG_DIR" "$TEST_TMP"
   if [ -n "${S3_DIR:-}" ]; then rm -rf "$S3_DIR" "$S3_DIR.log"; fi
 }
 trap cleanup EXIT INT TERM
 start_cluster "$PG_DIR" "$PG_PORT" -c fsync=off -c synchronous_commit=off -c full_page_writes=off
-psql_admin "$PG_PORT" -d postgres -c "CREATE ROLE eddyledger LOGIN PASSWORD 'eddyledger' CREATEDB"
+ensure_roles "$PG_PORT"
 
 export TEST_PG_ADMIN_URL="postgres://postgres@127.0.0.1:$PG_PORT/postgres"
 export TEST_PG_HOST_PORT="127.0.0.1:$PG_PORT"
 export NUXT_SESSION_PASSWORD="$(node -e "process.stdout.write(require('crypto').randomBytes(32).toString('hex'))")"
+# A throwaway ledger key, and key files of the run's own, so tests never touch the developer's.
+export NUXT_LEDGER_SIGNING_KEY="$(node -e "process.stdout.write(require('crypto').generateKeyPairSync('ed25519').privateKey.export({ type: 'pkcs8', format: 'pem' }))")"
+export NUXT_LEDGER_KEY_FILE="$TEST_TMP/ledger-signing-key" NUXT_LEDGER_KEYRING_FILE="$TEST_TMP/ledger-public-keys"
+export TEST_TMP_DIR="$TEST_TMP" TEST_PG_BIN="$(pg_bin)"
 export DEMO_PASSWORD="${DEMO_PASSWORD:-$DEMO_PASSWORD_DEFAULT}"
 
 SMTP_PORT="$(free_port)"; MAIL_WEB_PORT="$(free_port)"

@@ -6,9 +6,9 @@ export type NavItem = { to: string; label: string }
 const NAV: Record<Role, NavItem[]> = {
   engineer: [{ to: '/projects', label: 'Projects' }],
   reviewer: [{ to: '/review', label: 'Review queue' }, { to: '/projects', label: 'Projects' }],
-  auditor: [{ to: '/audit', label: 'Audit' }, { to: '/overview', label: 'Overview' }, { to: '/projects', label: 'Projects' }],
+  auditor: [{ to: '/audit', label: 'Audit' }, { to: '/ledger', label: 'Ledger' }, { to: '/overview', label: 'Overview' }, { to: '/projects', label: 'Projects' }],
   lead: [
-    { to: '/overview', label: 'Overview' }, { to: '/audit', label: 'Audit' }, { to: '/calibration', label: 'Calibration' },
+    { to: '/overview', label: 'Overview' }, { to: '/audit', label: 'Audit' }, { to: '/ledger', label: 'Ledger' }, { to: '/calibration', label: 'Calibration' },
     { to: '/projects', label: 'Projects' }, { to: '/rulesets', label: 'Rulesets' },
   ],
   admin: [
@@ -17,6 +17,7 @@ const NAV: Record<Role, NavItem[]> = {
     { to: '/admin/projects', label: 'Manage projects' },
     { to: '/admin/mail', label: 'Mail' },
     { to: '/rulesets', label: 'Rulesets' },
+    { to: '/ledger', label: 'Ledger' },
   ],
 }
 

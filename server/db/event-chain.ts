@@ -1,11 +1,13 @@
 // The decision record's hash chain and the hash of a case input. Relative imports only: used by
 // the server (server/utils/decisions/events.ts) and by the demo seed under plain Node.
-import { createHash } from 'node:crypto'
 import canonicalize from 'canonicalize'
 import { desc, eq, sql } from 'drizzle-orm'
 import type { Role } from '../../shared/utils/roles'
+import { appendLedgerEntry, canonicalHash, sha256Hex } from './ledger'
 import * as schema from './schema'
 import type { DbOrTx } from './types'
+
+export { canonicalHash, sha256Hex }
 
 // Each event's hash is sha256(previous hash + canonical event), the canonical form being RFC 8785
 // JSON of the fields below. The first event chains onto GENESIS_HASH.
@@ -23,15 +25,6 @@ export type HashedFields = {
   createdAt: Date
 }
 
-export function sha256Hex(text: string): string {
-  return createHash('sha256').update(text).digest('hex')
-}
-
-/** sha256 of the RFC 8785 canonical JSON of a value: the same input gives the same hash whatever its key order. */
-export function canonicalHash(value: unknown): string {
-  return sha256Hex(canonicalize(value) ?? 'null')
-}
-
 export function eventHash(prevHash: string, event: HashedFields): string {
   const canonical = canonicalize({
     decisionId: event.decisionId,
@@ -46,9 +39,10 @@ export function eventHash(prevHash: string, event: HashedFields): string {
 }
 
 /**
- * Appends one event to a decision's chain inside the caller's transaction. The decision row is
- * locked first so that two writers cannot both take the same sequence number. `at` backdates the
- * event (the demo seed only); the server always records the present.
+ * Appends one event to a decision's chain inside the caller's transaction, and the event to the
+ * ledger. The decision row is locked first so that two writers cannot both take the same sequence
+ * number. `at` backdates the event (the demo seed only); the server always records the present,
+ * and the ledger entry always carries the moment it was really written.
  */
 export async function appendChainedEvent(tx: DbOrTx, input: {
   decisionId: number
@@ -80,6 +74,13 @@ export async function appendChainedEvent(tx: DbOrTx, input: {
     prevHash,
     hash: eventHash(prevHash, fields),
   }).returning()
+  await appendLedgerEntry(tx, {
+    subjectType: 'decision',
+    subjectId: input.decisionId,
+    type: 'decision-event',
+    record: { table: 'decision_events', id: event!.id },
+    recordHash: event!.hash,
+  })
   return event!
 }
 

@@ -2,7 +2,7 @@
 // so scripts under plain Node (tsx) can load it too.
 import { sql } from 'drizzle-orm'
 import {
-  bigserial, boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
+  bigint, bigserial, boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core'
 import type { Advice, CaseInput, Rule, Ruleset } from '../../shared/rules'
 import type { EnteredCase } from '../../shared/schemas/case-form'
@@ -310,4 +310,65 @@ export const rulesetEvents = pgTable('ruleset_events', {
   createdAt: timestamp('created_at', { withTimezone: true }).notNull(),
   prevHash: text('prev_hash').notNull(),
   hash: text('hash').notNull(),
+})
+
+// The ledger: one append-only, hash-chained sequence across every decision and everything the
+// record depends on (server/db/ledger.ts). Each entry commits to one record by its hash: a decision
+// event (its chained hash), a stored revision, a ruleset version, a signing key. The sequence is
+// gap-free: appends are serialized, so a missing number means a removed entry.
+export const ledgerEntries = pgTable('ledger_entries', {
+  seq: bigint('seq', { mode: 'number' }).primaryKey(),
+  subjectType: text('subject_type').notNull(),
+  subjectId: text('subject_id').notNull(),
+  type: text('type').notNull(),
+  // The row the entry commits to (null when the record lives outside the database, e.g. a ruleset in code).
+  recordTable: text('record_table'),
+  recordId: bigint('record_id', { mode: 'number' }),
+  recordHash: text('record_hash').notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull(),
+  prevHash: text('prev_hash').notNull(),
+  hash: text('hash').notNull(),
+}, t => [
+  index('ledger_entries_subject_idx').on(t.subjectType, t.subjectId, t.seq),
+  uniqueIndex('ledger_entries_record_unique').on(t.recordTable, t.recordId),
+])
+
+// Public halves of the keys that sign checkpoints; the private key never enters the database. The
+// newest row is the active key, earlier ones are retired but stay so that old receipts verify.
+export const ledgerKeys = pgTable('ledger_keys', {
+  id: serial('id').primaryKey(),
+  keyId: text('key_id').notNull().unique(),
+  algorithm: text('algorithm').notNull().default('ed25519'),
+  publicKey: text('public_key').notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull(),
+})
+
+// Signed heads of the ledger, numbered without gaps; each is also mailed to the auditors as a receipt.
+export const ledgerCheckpoints = pgTable('ledger_checkpoints', {
+  number: integer('number').primaryKey(),
+  seq: bigint('seq', { mode: 'number' }).notNull(),
+  hash: text('hash').notNull(),
+  signedAt: timestamp('signed_at', { withTimezone: true, mode: 'date' }).notNull(),
+  keyId: text('key_id').notNull(),
+  signature: text('signature').notNull(),
+  // What made it: 'count', 'time', 'request' (an auditor or admin), 'rotation'.
+  reason: text('reason').notNull(),
+})
+
+// Runs of the ledger verification. A clean, signed run is the anchor the next incremental run starts
+// from: rows written since its snapshot (by transaction id) are the ones rechecked.
+export const ledgerVerifications = pgTable('ledger_verifications', {
+  id: serial('id').primaryKey(),
+  mode: text('mode', { enum: ['incremental', 'full'] }).notNull(),
+  startedAt: timestamp('started_at', { withTimezone: true, mode: 'date' }).notNull(),
+  finishedAt: timestamp('finished_at', { withTimezone: true, mode: 'date' }).notNull(),
+  // pg_snapshot_xmin of the run's snapshot (xid8 as text): every transaction before it was seen.
+  snapshotXmin: text('snapshot_xmin').notNull(),
+  headSeq: bigint('head_seq', { mode: 'number' }).notNull(),
+  headHash: text('head_hash').notNull(),
+  entries: integer('entries').notNull(),
+  checkpoints: integer('checkpoints').notNull(),
+  problems: jsonb('problems').notNull().$type<{ kind: string; decisionId?: number; seq?: number; detail: string }[]>(),
+  keyId: text('key_id'),
+  signature: text('signature'),
 })

@@ -69,7 +69,7 @@ async function projectTotal(projectId: number, status = '') {
 beforeAll(async () => {
   ;[auditor, lead, engineer, reviewer] = await Promise.all(['auditor', 'lead', 'engineer', 'reviewer'].map(signIn))
   project = await projectIds(auditor)
-  owner = new pg.Client({ connectionString: inject('databaseUrl') })
+  owner = new pg.Client({ connectionString: inject('databaseOwnerUrl') })
   await owner.connect()
   const draft = await createDraft(engineer, project['KB-102']!, { title: awkwardTitle })
   const submitted = await act(engineer, `/api/decisions/${draft.id}/submit`, { version: draft.version })
@@ -101,7 +101,7 @@ describe('GET /api/audit/decisions', () => {
       expect(row.chain, `decision ${row.id}`).toEqual((await auditor.get(`/api/decisions/${row.id}/verify`)).body)
     }
     const own = rows.find(r => r.id === mine.id)!
-    expect(own).toMatchObject({ projectCode: 'KB-102', title: awkwardTitle, status: 'approved', eventCount: 4, chain: { valid: true, checked: 4, brokenAt: null } })
+    expect(own).toMatchObject({ projectCode: 'KB-102', title: awkwardTitle, status: 'approved', eventCount: 4, chain: { valid: true, checked: 4, brokenAt: null, problems: [] } })
     // The lead reads the same list.
     expect((await lead.get('/api/audit/decisions?pageSize=50')).body.decisions).toEqual(rows.slice(0, 50))
   })
@@ -196,7 +196,7 @@ describe('tampering', () => {
     const after = await allAuditRows(auditor)
     const brokenAfter = after.filter(r => !r.chain.valid)
     expect(brokenAfter.map(r => r.id).sort()).toEqual([...brokenBefore, mine.id].sort())
-    expect(after.find(r => r.id === mine.id)!.chain).toEqual({ valid: false, checked: 3, brokenAt: tamperedId })
+    expect(after.find(r => r.id === mine.id)!.chain).toEqual({ valid: false, checked: 3, brokenAt: tamperedId, problems: [] })
 
     const csv = parseCsv((await auditor.get('/api/audit/decisions.csv')).body as string)
     const own = csv.find(l => Number(l[0]) === mine.id)!

@@ -36,7 +36,7 @@ let untouchedId: number
 beforeAll(async () => {
   ;[engineer, reviewer, auditor] = await Promise.all(['engineer', 'reviewer', 'auditor'].map(signIn))
   project = await projectIds(auditor)
-  owner = new pg.Client({ connectionString: inject('databaseUrl') })
+  owner = new pg.Client({ connectionString: inject('databaseOwnerUrl') })
   await owner.connect()
 
   // A decision with a few events: created, revised, submitted, commented, approved.
@@ -70,7 +70,7 @@ describe('the hash chain', () => {
   it('verifies as intact', async () => {
     const res = await auditor.get(`/api/decisions/${decisionId}/verify`)
     expect(res.status).toBe(200)
-    expect(res.body).toEqual({ valid: true, checked: 5, brokenAt: null })
+    expect(res.body).toEqual({ valid: true, checked: 5, brokenAt: null, problems: [] })
   })
 
   it('holds the demo decisions the seed wrote: every stage of review, engine advice, intact chains', async () => {
@@ -92,7 +92,7 @@ describe('the hash chain', () => {
         const ruleset = rulesetNamed(detail.decision.advice.ruleset.version)
         expect(detail.decision.advice, `decision ${d.id}`).toEqual(JSON.parse(JSON.stringify(advise(detail.decision.caseInput, { ruleset }))))
         expect((await auditor.get(`/api/decisions/${d.id}/verify`)).body, `decision ${d.id}`).toEqual({
-          valid: true, checked: detail.events.length, brokenAt: null,
+          valid: true, checked: detail.events.length, brokenAt: null, problems: [],
         })
         if (d.status === 'overridden') {
           expect(detail.decision.override.comment.length).toBeGreaterThan(15)
@@ -129,8 +129,8 @@ describe('tampering', () => {
     const tamperedId = await tamperWithEvent(owner, tampered, 3, { comment: 'Looks fine.' })
     const res = await auditor.get(`/api/decisions/${tampered}/verify`)
     expect(res.status).toBe(200)
-    expect(res.body).toEqual({ valid: false, checked: 3, brokenAt: tamperedId })
-    expect((await auditor.get(`/api/decisions/${untouchedId}/verify`)).body).toEqual({ valid: true, checked: 1, brokenAt: null })
+    expect(res.body).toEqual({ valid: false, checked: 3, brokenAt: tamperedId, problems: [] })
+    expect((await auditor.get(`/api/decisions/${untouchedId}/verify`)).body).toEqual({ valid: true, checked: 1, brokenAt: null, problems: [] })
     // The trigger is back on.
     await expect(owner.query('DELETE FROM decision_events WHERE id = $1', [tamperedId])).rejects.toThrow(/append-only/)
   })

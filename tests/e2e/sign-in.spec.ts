@@ -4,9 +4,9 @@ import { keepScreenshot, signInAs, signOut } from '../support/e2e'
 const NAV: Record<string, string[]> = {
   engineer: ['Projects'],
   reviewer: ['Review queue', 'Projects'],
-  auditor: ['Audit', 'Overview', 'Projects'],
-  lead: ['Overview', 'Audit', 'Calibration', 'Projects', 'Rulesets'],
-  admin: ['Projects', 'Users', 'Manage projects', 'Mail', 'Rulesets'],
+  auditor: ['Audit', 'Ledger', 'Overview', 'Projects'],
+  lead: ['Overview', 'Audit', 'Ledger', 'Calibration', 'Projects', 'Rulesets'],
+  admin: ['Projects', 'Users', 'Manage projects', 'Mail', 'Rulesets', 'Ledger'],
 }
 // Each role lands where its work waits.
 const LANDING: Record<string, RegExp> = {

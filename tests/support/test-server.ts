@@ -17,7 +17,16 @@ function required(name: string) {
   return value
 }
 
+/**
+ * The owner's connection (eddyledger_owner: migrations, and whatever a test does behind the
+ * application's back). The server itself connects as the app role: appDatabaseUrl.
+ */
 export function databaseUrl(database: string) {
+  return `postgres://eddyledger_owner:eddyledger_owner@${required('TEST_PG_HOST_PORT')}/${database}`
+}
+
+/** The server's connection: eddyledger, a member of eddyledger_app (migration 0007's grants). */
+export function appDatabaseUrl(database: string) {
   return `postgres://eddyledger:eddyledger@${required('TEST_PG_HOST_PORT')}/${database}`
 }
 
@@ -25,7 +34,7 @@ export async function freshDatabase(database: string) {
   const admin = new pg.Client({ connectionString: required('TEST_PG_ADMIN_URL') })
   await admin.connect()
   await admin.query(`DROP DATABASE IF EXISTS ${database} WITH (FORCE)`)
-  await admin.query(`CREATE DATABASE ${database} OWNER eddyledger`)
+  await admin.query(`CREATE DATABASE ${database} OWNER eddyledger_owner`)
   await admin.end()
   const pool = new pg.Pool({ connectionString: databaseUrl(database), max: 1 })
   const db = drizzle(pool, { schema })
@@ -45,7 +54,7 @@ export async function startServer(options: { database: string; port: number; env
       ...process.env,
       HOST: '127.0.0.1',
       PORT: String(options.port),
-      NUXT_DATABASE_URL: url,
+      NUXT_DATABASE_URL: appDatabaseUrl(options.database),
       NUXT_APP_URL: base,
       NUXT_SMTP_PORT: process.env.TEST_SMTP_PORT ?? '1025',
       // Tests give each scenario its own client address through X-Forwarded-For.
@@ -65,7 +74,10 @@ export async function startServer(options: { database: string; port: number; env
   }
   return {
     url: base,
+    // The owner's connection, for tests that reach the database directly.
     databaseUrl: url,
+    databaseOwnerUrl: url,
+    databaseAppUrl: appDatabaseUrl(options.database),
     stop: () => new Promise<void>((resolve) => {
       if (child.exitCode !== null) return resolve()
       child.once('exit', () => resolve())

@@ -1,10 +1,10 @@
 // The QA audit of the decision record: every decision across projects with its history and the
 // check of its hash chain, as a page for the screen or as all rows for a CSV export.
-import { and, asc, count, desc, eq, inArray, sql } from 'drizzle-orm'
+import { and, count, desc, eq, sql } from 'drizzle-orm'
 import type { AuditFilter, AuditListQuery } from '#shared/schemas/audit'
 import { DECISION_STATUS_LABELS } from '#shared/utils/decision-status'
 import { FIGURES, formatPlain } from '#shared/utils/format'
-import { checkChain } from '../../db/event-chain'
+import { checkDecisions } from '../../db/ledger-decision-check'
 import { summaryQuery, toSummary } from '../decisions/queries'
 import { tables, useDb } from '../db'
 import { verificationSummaries } from '../verification/summary'
@@ -33,22 +33,11 @@ function auditQuery(filter: AuditFilter) {
 }
 
 /**
- * The chain check of each decision, from one read of their events: the same check as
- * verifyChain (server/utils/decision-events.ts), without a query per decision for the export.
+ * The check of each decision (chain, ledger, state), from one read for all of them: the same check
+ * as verifyChain (server/utils/decisions/events.ts), without a query per decision for the export.
  */
-async function checkChains(decisionIds: number[]) {
-  const result = new Map<number, ReturnType<typeof checkChain>>()
-  if (!decisionIds.length) return result
-  const rows = await useDb().select().from(events)
-    .where(inArray(events.decisionId, decisionIds)).orderBy(asc(events.decisionId), asc(events.seq))
-  const byDecision = new Map<number, typeof rows>()
-  for (const row of rows) {
-    const list = byDecision.get(row.decisionId) ?? []
-    list.push(row)
-    byDecision.set(row.decisionId, list)
-  }
-  for (const id of decisionIds) result.set(id, checkChain(byDecision.get(id) ?? []))
-  return result
+function checkChains(decisionIds: number[]) {
+  return checkDecisions(useDb(), decisionIds)
 }
 
 async function withChains(rows: Awaited<ReturnType<typeof auditQuery>>) {

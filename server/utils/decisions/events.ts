@@ -1,10 +1,10 @@
 // The server's entry points to the decision record's hash chain (server/db/event-chain.ts, which
-// plain Node can load too, so the demo seed writes the same chain).
-import { asc, eq } from 'drizzle-orm'
+// plain Node can load too, so the demo seed writes the same chain) and to a decision's part of the
+// ledger (server/db/ledger-decision-check.ts).
 import type { SessionUser } from '#shared/types/session'
-import { appendChainedEvent, checkChain, type DecisionEventType } from '../../db/event-chain'
+import { appendChainedEvent, type DecisionEventType } from '../../db/event-chain'
+import { checkDecisions } from '../../db/ledger-decision-check'
 import type { DbOrTx } from '../../db/types'
-import { tables } from '../db'
 
 /** Appends one event to a decision's chain inside the caller's transaction. */
 export function appendEvent(tx: DbOrTx, input: {
@@ -16,9 +16,10 @@ export function appendEvent(tx: DbOrTx, input: {
   return appendChainedEvent(tx, input)
 }
 
-/** Recomputes a decision's chain: the first event whose link or hash does not hold is reported. */
+/**
+ * Recomputes a decision's chain (the first event whose link or hash does not hold is reported) and
+ * checks its events, revisions and row against the ledger (server/db/ledger-decision-check.ts).
+ */
 export async function verifyChain(db: DbOrTx, decisionId: number) {
-  const events = await db.select().from(tables.decisionEvents)
-    .where(eq(tables.decisionEvents.decisionId, decisionId)).orderBy(asc(tables.decisionEvents.seq))
-  return checkChain(events)
+  return (await checkDecisions(db, [decisionId])).get(decisionId)!
 }

@@ -1,5 +1,8 @@
 // The writes of the decision record: a decision with its first revision, a revision, a status
-// change. Each step is a row change plus its chained event, inside the caller's transaction.
+// change. Each step is a row change plus its chained event (and ledger entries), inside the
+// caller's transaction. The events carry everything the decision row's status, override, title and
+// current revision are derived from: the database checks at commit that the row agrees with them
+// (migration 0006), and the ledger verification replays them.
 // Relative imports only, so the demo seed writes its decisions through the same steps. Guards
 // (who may do what) and error messages are the server's (policy.ts, workflow.ts, review.ts beside it).
 import { and, eq, inArray, sql } from 'drizzle-orm'
@@ -11,6 +14,7 @@ import type { UnitSystem } from '../../../shared/units/catalogue'
 import type { DecisionStatus } from '../../../shared/utils/decision-status'
 import type { Role } from '../../../shared/utils/roles'
 import { appendChainedEvent, canonicalHash, type DecisionEventType } from '../../db/event-chain'
+import { insertRevision } from '../../db/ledger-records'
 import * as schema from '../../db/schema'
 import type { DbOrTx } from '../../db/types'
 
@@ -105,15 +109,18 @@ export function adviceRecord(submission: CaseSubmission) {
   }
 }
 
+// Round-trips through JSON so the ledger's hash covers exactly what jsonb will give back.
+const asStored = <T>(value: T): T => (value === undefined ? value : JSON.parse(JSON.stringify(value)))
+
 function revisionValues(decisionId: number, revision: number, record: ReturnType<typeof adviceRecord>, notes: string, actor: RecordActor, at: Date) {
   return {
     decisionId,
     revision,
-    caseInput: record.caseInput,
+    caseInput: asStored(record.caseInput),
     unitSystem: record.unitSystem,
-    entered: record.entered,
-    requested: record.requested,
-    advice: record.advice,
+    entered: asStored(record.entered),
+    requested: asStored(record.requested),
+    advice: asStored(record.advice),
     notes,
     inputHash: record.inputHash,
     rulesetId: record.rulesetId,
@@ -124,13 +131,13 @@ function revisionValues(decisionId: number, revision: number, record: ReturnType
   }
 }
 
-function revisionPayload(revision: number, record: ReturnType<typeof adviceRecord>) {
+function revisionPayload(revision: number, record: ReturnType<typeof adviceRecord>, title: string) {
   const { approach, model, wallTreatment } = record.advice.recommendation
   const requested = record.requested
     ? { requested: { approach: record.requested.figures.approach, wallTreatment: record.requested.figures.wallTreatment, reason: record.requested.reason } }
     : {}
   return {
-    revision, inputHash: record.inputHash, approach, model, wallTreatment, rulesetVersion: record.rulesetVersion,
+    revision, title, inputHash: record.inputHash, approach, model, wallTreatment, rulesetVersion: record.rulesetVersion,
     unitSystem: record.unitSystem, ...requested,
   }
 }
@@ -155,12 +162,12 @@ export async function insertDecision(tx: DbOrTx, input: CaseSubmission & {
     createdAt: at,
     updatedAt: at,
   }).returning()
-  await tx.insert(schema.decisionRevisions).values(revisionValues(decision!.id, 1, record, input.notes ?? '', input.author, at))
+  await insertRevision(tx, revisionValues(decision!.id, 1, record, input.notes ?? '', input.author, at))
   await appendChainedEvent(tx, {
     decisionId: decision!.id,
     type: 'created',
     actor: input.author,
-    payload: { ...revisionPayload(1, record), ...(input.supersedesId ? { supersedes: input.supersedesId } : {}) },
+    payload: { ...revisionPayload(1, record, input.title), ...(input.supersedesId ? { supersedes: input.supersedesId } : {}) },
     at,
   })
   return decision!
@@ -220,7 +227,7 @@ export async function reviseDecisionRecord(tx: DbOrTx, input: CaseSubmission & {
     version: input.version,
     from: ['draft'],
     set: { nextRevision: true, unitSystem: record.unitSystem, ...(input.title ? { title: input.title } : {}) },
-    event: { type: 'revised', actor: input.actor, payload: changed => revisionPayload(changed.currentRevision, record) },
+    event: { type: 'revised', actor: input.actor, payload: changed => revisionPayload(changed.currentRevision, record, changed.title) },
     at,
   })
   if (!row) return null
@@ -231,14 +238,15 @@ export async function reviseDecisionRecord(tx: DbOrTx, input: CaseSubmission & {
       .where(and(eq(schema.decisionRevisions.decisionId, row.id), eq(schema.decisionRevisions.revision, row.currentRevision - 1)))
     notes = previous?.notes ?? ''
   }
-  await tx.insert(schema.decisionRevisions).values(revisionValues(row.id, row.currentRevision, record, notes, input.actor, at))
+  await insertRevision(tx, revisionValues(row.id, row.currentRevision, record, notes, input.actor, at))
   return row
 }
 
 /**
  * What a decision's override holds: the reviewer's choice with the near-wall figures and the cost
  * recomputed for the chosen approach and treatment, the reason, and the rules disagreed with; plus
- * the event payload, which also keeps what the engine had recommended.
+ * the event payload, which keeps the choice, what the engine had recommended, and the whole
+ * override as stored (so that the decision's override is derived from its history).
  */
 export function overrideRecord(
   current: { caseInput: CaseInput; advice: Advice },
@@ -254,8 +262,9 @@ export function overrideRecord(
     comment: choice.comment,
     disagreedRules: choice.disagreedRules,
   }
+  const override = asStored<DecisionOverride>({ ...chosen, wall, cost, reviewer, ...(choice.yPlusTarget !== undefined ? { requestedYPlus: choice.yPlusTarget } : {}) })
   return {
-    override: { ...chosen, wall, cost, reviewer, ...(choice.yPlusTarget !== undefined ? { requestedYPlus: choice.yPlusTarget } : {}) },
-    payload: { ...chosen, coreHours: cost.coreHours, recommended: current.advice.recommendation },
+    override,
+    payload: { ...chosen, coreHours: cost.coreHours, recommended: current.advice.recommendation, override },
   }
 }

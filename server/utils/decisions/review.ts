@@ -1,4 +1,4 @@
-import { and, eq } from 'drizzle-orm'
+import { and, eq, sql } from 'drizzle-orm'
 import { conflict, notFound } from '../http/errors'
 import type { OverrideBody } from '#shared/schemas/decisions'
 import type { CaseInput } from '#shared/rules'
@@ -151,6 +151,8 @@ export async function overrideDecision(decisionId: number, body: OverrideBody, u
  */
 export async function supersedeDecision(decisionId: number, body: { version: number; title?: string }, user: SessionUser) {
   return useDb().transaction(async (tx) => {
+    // The old decision's row first: every writer takes a decision's row before the ledger's lock.
+    await tx.execute(sql`SELECT id FROM decisions WHERE id = ${decisionId} FOR UPDATE`)
     const old = await findDecision(decisionId, tx)
     if (!old) throw notFound(`Decision ${decisionId} does not exist`)
     const project = await tx.query.projects.findFirst({ where: eq(tables.projects.id, old.projectId) })

@@ -12,6 +12,7 @@ import { tables, useDb } from '../db'
 // retried with backoff, so the action itself is never lost and admins can see what went wrong.
 
 export type MailKind = 'submitted' | 'approved' | 'overridden' | 'changes_requested' | 'invite' | 'reset' | 'wall_check' | 'wall_check_reviewed'
+  | 'ledger-checkpoint' | 'ledger-problems'
 
 /** The closing line of every message: the same cautions every page carries. */
 export const MAIL_CAUTIONS = CAUTION_SUMMARY

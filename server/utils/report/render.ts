@@ -175,9 +175,15 @@ export function renderDecisionReport(data: DecisionReportData, options: { genera
   const lastHash = events.at(-1)?.hash ?? '—'
   w.ensure(40)
   if (chain.valid) {
-    w.paragraph(`Chain intact: ${chain.checked} ${chain.checked === 1 ? 'event' : 'events'} recomputed, each linked to the one before.`, { font: REPORT_FONTS.bold, color: ACCENT })
+    w.paragraph(`Chain intact: ${chain.checked} ${chain.checked === 1 ? 'event' : 'events'} recomputed, each linked to the one before; events, revisions and the decision's state agree with the ledger.`, { font: REPORT_FONTS.bold, color: ACCENT })
   } else {
-    w.paragraph(`Chain broken at event ${chain.brokenAt ?? '?'} (${chain.checked} checked): the record may have been altered. Do not rely on this history.`, { font: REPORT_FONTS.bold, color: '#a61b1b' })
+    if (chain.brokenAt !== null) {
+      w.paragraph(`Chain broken at event ${chain.brokenAt} (${chain.checked} checked): the record may have been altered. Do not rely on this history.`, { font: REPORT_FONTS.bold, color: '#a61b1b' })
+    }
+    // What the ledger check found besides (or instead of) a broken chain: a forged status or override, a rehashed event...
+    for (const problem of chain.problems.slice(0, 6)) {
+      w.paragraph(`Ledger check failed (${problem.kind}): ${problem.detail}. Do not rely on the status, override or history shown here.`, { font: REPORT_FONTS.bold, color: '#a61b1b' })
+    }
   }
   w.paragraph(`Last hash: ${lastHash}`, { font: REPORT_FONTS.mono, size: 7.5 })
 

@@ -2,6 +2,7 @@ import { and, asc, eq, isNull } from 'drizzle-orm'
 import { bandFor, gridConvergence, type GridStudyRecord, type GridStudyResult, type RunRecordView } from '#shared/verification'
 import type { GridStudyBody, RunRecordBody } from '#shared/schemas/verification'
 import type { SessionUser } from '#shared/types/session'
+import { recordInLedger } from '../../db/ledger-records'
 import { tables, useDb } from '../db'
 import { appendEvent } from '../decisions/events'
 import { signedOffChoice } from './signed-off'
@@ -30,6 +31,7 @@ export async function createGridStudy(decisionId: number, body: GridStudyBody, u
         order: result.order, extrapolated: result.extrapolated, gciFine: result.gciFine, convergence: result.convergence,
       },
     })
+    await recordInLedger(tx, 'grid_studies', study!)
     return study!
   })
   return toGridStudyDto(row)
@@ -66,6 +68,7 @@ export async function createRunRecord(decisionId: number, body: RunRecordBody, u
         estimatedCoreHours: estimated?.coreHours ?? null,
       },
     })
+    await recordInLedger(tx, 'run_records', run!)
     return run!
   })
   return toRunDto(row, choice.approach)

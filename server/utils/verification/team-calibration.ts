@@ -5,6 +5,7 @@ import {
 } from '#shared/verification'
 import type { ApproachId } from '#shared/rules'
 import type { SessionUser } from '#shared/types/session'
+import { recordInLedger } from '../../db/ledger-records'
 import { tables, useDb } from '../db'
 import { currentPassFraction } from './wall-checks'
 
@@ -64,12 +65,16 @@ export async function adoptCalibration(note: string, user: SessionUser) {
     throw createError({ statusCode: 409, message: `Nothing to adopt yet: a calibration needs at least ${MIN_RUNS_TO_ADOPT} recorded runs of one approach on one kind of hardware` })
   }
   const used = new Set(entries.map(e => `${e.approach}|${e.hardware}`))
-  const [row] = await useDb().insert(tables.calibrationAdoptions).values({
-    adoptedBy: user.id,
-    entries: entries.map(e => ({ approach: e.approach, hardware: e.hardware, runs: e.runs, coreSecondsPerCellStep: e.coreSecondsPerCellStep, spread: e.spread })),
-    runIds: runs.filter(r => used.has(`${r.approach}|${r.hardware}`)).map(r => r.id),
-    note,
-  }).returning()
+  const row = await useDb().transaction(async (tx) => {
+    const [adopted] = await tx.insert(tables.calibrationAdoptions).values({
+      adoptedBy: user.id,
+      entries: entries.map(e => ({ approach: e.approach, hardware: e.hardware, runs: e.runs, coreSecondsPerCellStep: e.coreSecondsPerCellStep, spread: e.spread })),
+      runIds: runs.filter(r => used.has(`${r.approach}|${r.hardware}`)).map(r => r.id),
+      note,
+    }).returning()
+    await recordInLedger(tx, 'calibration_adoptions', adopted!)
+    return adopted
+  })
   return { version: row!.version, adoptedAt: row!.createdAt.toISOString(), adoptedBy: user.name, entries: row!.entries, runIds: row!.runIds, note: row!.note }
 }
 
@@ -79,7 +84,11 @@ export async function calibrationFor(advice: Parameters<typeof calibratedEstimat
 }
 
 export async function setPassFraction(value: number, note: string, user: SessionUser) {
-  const [row] = await useDb().insert(tables.teamSettings).values({ wallCheckPassFraction: value, note, setBy: user.id }).returning()
+  const row = await useDb().transaction(async (tx) => {
+    const [setting] = await tx.insert(tables.teamSettings).values({ wallCheckPassFraction: value, note, setBy: user.id }).returning()
+    await recordInLedger(tx, 'team_settings', setting!)
+    return setting
+  })
   return { wallCheckPassFraction: row!.wallCheckPassFraction, note: row!.note, setAt: row!.createdAt, setBy: user.name }
 }
 

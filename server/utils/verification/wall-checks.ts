@@ -3,6 +3,7 @@ import { and, desc, eq, isNull } from 'drizzle-orm'
 import { bandFor, DEFAULT_PASS_FRACTION, verdictFor, type WallCheckRecord, type WallCheckResult } from '#shared/verification'
 import type { WallCheckReviewBody } from '#shared/schemas/verification'
 import type { SessionUser } from '#shared/types/session'
+import { recordInLedger } from '../../db/ledger-records'
 import { tables, useDb, type DbOrTx } from '../db'
 import { appendEvent } from '../decisions/events'
 import { MAIL_CAUTIONS, enqueueMail, kickMailDelivery } from '../mail/outbox'
@@ -82,6 +83,7 @@ export async function createWallCheck(decisionId: number, file: ReceivedFile, re
         verdict,
       },
     })
+    await recordInLedger(tx, 'wall_checks', check!)
     const reviewer = await signingReviewer(decisionId, tx)
     if (reviewer && reviewer.id !== user.id) {
       await enqueueMail(tx, {

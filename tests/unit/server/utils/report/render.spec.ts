@@ -55,7 +55,7 @@ function overriddenCondenser(text: { title?: string; comment?: string; author?: 
     },
     project: { id: 3, code: 'KB-103', name: 'Rooftop condenser wake and noise' },
     events: events.map(({ actorId, ...e }) => ({ ...e, actor: { id: actorId, name: names[actorId]! } })),
-    chain: checkChain(events),
+    chain: { ...checkChain(events), problems: [] },
     provenance: { rulesetId: record.rulesetId, rulesetVersion: record.rulesetVersion, engineVersion: record.engineVersion, inputHash: record.inputHash },
   } as DecisionReportData
 }
@@ -104,5 +104,15 @@ describe('renderDecisionReport', () => {
     const text = execFileSync('/usr/bin/pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ')
     for (const words of Object.values(typed)) expect(text).toContain(words)
     expect(text).not.toContain('?')
+  }, 30_000)
+
+  it.runIf(existsSync('/usr/bin/pdftotext'))('says so in red when the ledger check finds the state forged, instead of "chain intact"', async () => {
+    const forged = { ...data, chain: { ...data.chain, valid: false, problems: [{ kind: 'state' as const, decisionId: 7, detail: 'Its row disagrees with its history: its override differs from the one its history recorded' }] } }
+    const dir = mkdtempSync(join(tmpdir(), 'eddy-report-'))
+    const file = join(dir, 'report.pdf')
+    writeFileSync(file, await renderDecisionReport(forged, { generatedAt }))
+    const text = execFileSync('/usr/bin/pdftotext', ['-layout', file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ')
+    expect(text).not.toContain('Chain intact')
+    expect(text).toContain('Ledger check failed (state): Its row disagrees with its history: its override differs from the one its history recorded')
   }, 30_000)
 })
