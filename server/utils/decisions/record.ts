@@ -13,6 +13,7 @@ import type { Role } from '../../../shared/utils/roles'
 import { appendChainedEvent, canonicalHash, type DecisionEventType } from '../../db/event-chain'
 import * as schema from '../../db/schema'
 import type { DbOrTx } from '../../db/types'
+import { writeDecisionSummary } from './summary'
 
 export type RecordActor = { id: number; role: Role }
 export type DecisionRow = typeof schema.decisions.$inferSelect
@@ -103,7 +104,7 @@ export function adviceRecord(submission: CaseSubmission) {
   }
 }
 
-function revisionValues(decisionId: number, revision: number, record: ReturnType<typeof adviceRecord>, notes: string, actor: RecordActor, at: Date) {
+export function revisionValues(decisionId: number, revision: number, record: ReturnType<typeof adviceRecord>, notes: string, actor: RecordActor, at: Date) {
   return {
     decisionId,
     revision,
@@ -122,7 +123,7 @@ function revisionValues(decisionId: number, revision: number, record: ReturnType
   }
 }
 
-function revisionPayload(revision: number, record: ReturnType<typeof adviceRecord>) {
+export function revisionPayload(revision: number, record: ReturnType<typeof adviceRecord>) {
   const { approach, model, wallTreatment } = record.advice.recommendation
   const requested = record.requested
     ? { requested: { approach: record.requested.figures.approach, wallTreatment: record.requested.figures.wallTreatment, reason: record.requested.reason } }
@@ -161,6 +162,7 @@ export async function insertDecision(tx: DbOrTx, input: CaseSubmission & {
     payload: { ...revisionPayload(1, record), ...(input.supersedesId ? { supersedes: input.supersedesId } : {}) },
     at,
   })
+  await writeDecisionSummary(tx, decision!.id)
   return decision!
 }
 
@@ -169,7 +171,13 @@ export async function insertDecision(tx: DbOrTx, input: CaseSubmission & {
  * only if it still has the version the client saw and one of the expected statuses; the version
  * goes up by one and the event is chained. Null when nothing matched (stale or wrong status).
  */
-export async function changeDecision(tx: DbOrTx, input: {
+export async function changeDecision(tx: DbOrTx, input: DecisionChange): Promise<DecisionRow | null> {
+  const row = await changeDecisionRow(tx, input)
+  if (row) await writeDecisionSummary(tx, row.id)
+  return row
+}
+
+type DecisionChange = {
   decisionId: number
   version: number
   from: readonly DecisionStatus[]
@@ -177,7 +185,10 @@ export async function changeDecision(tx: DbOrTx, input: {
   // The payload may depend on the changed row (e.g. the new revision number).
   event: { type: DecisionEventType; actor: RecordActor; payload?: Record<string, unknown> | ((row: DecisionRow) => Record<string, unknown>) }
   at?: Date
-}): Promise<DecisionRow | null> {
+}
+
+// The row change and its event, without the summary (a revision writes it after its new revision row).
+async function changeDecisionRow(tx: DbOrTx, input: DecisionChange): Promise<DecisionRow | null> {
   const at = input.at ?? new Date()
   const { nextRevision, ...set } = input.set
   const [row] = await tx.update(schema.decisions).set({
@@ -213,7 +224,7 @@ export async function reviseDecisionRecord(tx: DbOrTx, input: CaseSubmission & {
 }) {
   const record = adviceRecord(input)
   const at = input.at ?? new Date()
-  const row = await changeDecision(tx, {
+  const row = await changeDecisionRow(tx, {
     decisionId: input.decisionId,
     version: input.version,
     from: ['draft'],
@@ -230,6 +241,7 @@ export async function reviseDecisionRecord(tx: DbOrTx, input: CaseSubmission & {
     notes = previous?.notes ?? ''
   }
   await tx.insert(schema.decisionRevisions).values(revisionValues(row.id, row.currentRevision, record, notes, input.actor, at))
+  await writeDecisionSummary(tx, row.id)
   return row
 }
 
