@@ -57,4 +57,12 @@ export default defineNuxtConfig({
     storage: { endpoint: '', region: 'us-east-1', bucket: 'eddyledger-uploads', accessKeyId: '', secretAccessKey: '', forcePathStyle: false },
   },
   typescript: { strict: true },
+  hooks: {
+    // No prefetch hints for dynamically imported chunks (other pages, lazy components): the
+    // browser downloads what the page shows, and the rest when it is used. Links to other pages
+    // still prefetch their page as they come into view.
+    'build:manifest': (manifest) => {
+      for (const chunk of Object.values(manifest)) chunk.prefetch = false
+    },
+  },
 })

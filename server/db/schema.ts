@@ -195,7 +195,10 @@ export const decisionTallies = pgTable('decision_tallies', {
   coreHours: numeric('core_hours').notNull(),
   budgetCoreHours: numeric('budget_core_hours').notNull(),
   overBudget: integer('over_budget').notNull(),
-}, t => [primaryKey({ columns: [t.month, t.projectId, t.status, t.approach, t.model, t.engineApproach, t.overridden] })])
+}, t => [
+  primaryKey({ columns: [t.month, t.projectId, t.status, t.approach, t.model, t.engineApproach, t.overridden] }),
+  index('decision_tallies_project_idx').on(t.projectId, t.month),
+])
 
 // How often overriding reviewers named each rule, per project, month and status, kept the same way.
 export const decisionRuleTallies = pgTable('decision_rule_tallies', {
@@ -204,7 +207,10 @@ export const decisionRuleTallies = pgTable('decision_rule_tallies', {
   status: decisionStatusEnum('status').notNull(),
   rule: text('rule').notNull(),
   decisions: integer('decisions').notNull(),
-}, t => [primaryKey({ columns: [t.month, t.projectId, t.status, t.rule] })])
+}, t => [
+  primaryKey({ columns: [t.month, t.projectId, t.status, t.rule] }),
+  index('decision_rule_tallies_project_idx').on(t.projectId, t.month),
+])
 
 // Outgoing mail is written in the same transaction as the action, then delivered after commit and
 // retried on failure, so a failed send never loses the action.

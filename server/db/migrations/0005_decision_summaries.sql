@@ -59,6 +59,7 @@ ALTER TABLE "decision_summaries" ADD CONSTRAINT "decision_summaries_author_id_us
 ALTER TABLE "decision_summaries" ADD CONSTRAINT "decision_summaries_reviewer_id_users_id_fk" FOREIGN KEY ("reviewer_id") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision_summaries" ADD CONSTRAINT "decision_summaries_changes_requested_by_users_id_fk" FOREIGN KEY ("changes_requested_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision_tallies" ADD CONSTRAINT "decision_tallies_project_id_projects_id_fk" FOREIGN KEY ("project_id") REFERENCES "public"."projects"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+CREATE INDEX "decision_rule_tallies_project_idx" ON "decision_rule_tallies" USING btree ("project_id","month");--> statement-breakpoint
 CREATE INDEX "decision_summaries_updated_idx" ON "decision_summaries" USING btree ("updated_at","decision_id");--> statement-breakpoint
 CREATE INDEX "decision_summaries_project_updated_idx" ON "decision_summaries" USING btree ("project_id","updated_at","decision_id");--> statement-breakpoint
 CREATE INDEX "decision_summaries_status_updated_idx" ON "decision_summaries" USING btree ("status","updated_at","decision_id");--> statement-breakpoint
@@ -67,4 +68,5 @@ CREATE INDEX "decision_summaries_queue_idx" ON "decision_summaries" USING btree 
 CREATE INDEX "decision_summaries_author_updated_idx" ON "decision_summaries" USING btree ("author_id","updated_at","decision_id");--> statement-breakpoint
 CREATE INDEX "decision_summaries_created_idx" ON "decision_summaries" USING btree ("created_at");--> statement-breakpoint
 CREATE INDEX "decision_summaries_project_created_idx" ON "decision_summaries" USING btree ("project_id","created_at");--> statement-breakpoint
-CREATE INDEX "decision_summaries_overridden_created_idx" ON "decision_summaries" USING btree ("created_at") WHERE "decision_summaries"."overridden";
+CREATE INDEX "decision_summaries_overridden_created_idx" ON "decision_summaries" USING btree ("created_at") WHERE "decision_summaries"."overridden";--> statement-breakpoint
+CREATE INDEX "decision_tallies_project_idx" ON "decision_tallies" USING btree ("project_id","month");
