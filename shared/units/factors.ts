@@ -31,11 +31,13 @@ export const LINEAR_UNITS: Readonly<Record<string, LinearUnit>> = {
   'K': { factor: 1 },
   'degC': { factor: 1, offset: 273.15 },
   'degF': { factor: 1 / 1.8, offset: 459.67 / 1.8 },
-  // pressure, to Pa
+  // pressure (and stress), to Pa
   'Pa': { factor: 1 },
   'kPa': { factor: 1e3 },
   'bar': { factor: 1e5 },
   'psi': { factor: (POUND * STANDARD_GRAVITY) / (INCH * INCH) },
+  // stress, to Pa: a pound-force per square foot
+  'lbf/ft^2': { factor: (POUND * STANDARD_GRAVITY) / (FOOT * FOOT) },
   // dynamic viscosity, to Pa s; 1 P = 0.1 Pa s
   'Pa s': { factor: 1 },
   'mPa s': { factor: 1e-3 },

@@ -1,9 +1,9 @@
 // The QA audit of the decision record: every decision across projects with its history and the
 // check of its hash chain, a keyset page at a time, filtered and searched from the summaries.
-import { and, desc, eq, ilike, or, sql, type SQL } from 'drizzle-orm'
+import { and, eq, ilike, or, sql, type SQL } from 'drizzle-orm'
 import type { AuditFilter, AuditListQuery } from '#shared/schemas/audit'
 import type { DbOrTx } from '../../db/types'
-import { filteredSummaries, summaryRows, toSummary } from '../decisions/lists'
+import { LATEST_ACTIVITY, filteredSummaries, summaryRows, toSummary } from '../decisions/lists'
 import { afterCursor, countRows, keysetPage } from '../pagination/keyset'
 import { tables, useDb } from '../db'
 import { chainFacts } from './chains'
@@ -37,14 +37,14 @@ export async function auditWhere(filter: AuditFilter) {
 
 /** The rows of the audit in its order (latest activity first), for a page or the export. */
 export function auditRows(where: SQL | undefined, db: DbOrTx = useDb()) {
-  return summaryRows(db).where(where).orderBy(desc(s.updatedAt), desc(s.decisionId))
+  return summaryRows(db).where(where).orderBy(...LATEST_ACTIVITY)
 }
 
 export async function listAuditDecisions(query: AuditListQuery) {
   const where = await auditWhere(query)
   const [rows, totals] = await Promise.all([
     auditRows(and(where, afterCursor(s.updatedAt, s.decisionId, query.cursor, 'desc'))).limit(query.limit + 1),
-    countRows(useDb(), filteredSummaries(where)),
+    countRows(useDb(), filteredSummaries(where, LATEST_ACTIVITY)),
   ])
   const page = keysetPage(rows, query.limit, row => ({ at: row.updatedAt, id: row.id }))
   const facts = await chainFacts(useDb(), page.items.map(r => r.id))

@@ -22,6 +22,10 @@ export function versionedCache<Value>(capacity: number) {
       if (entries.size > capacity) entries.delete(entries.keys().next().value!)
       return value
     },
+    /** Drops one entry (a load that failed, so the next request tries again). */
+    forget(version: string, key: string) {
+      entries.delete(`${version}\u0000${key}`)
+    },
     get size() {
       return entries.size
     },

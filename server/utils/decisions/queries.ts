@@ -160,13 +160,18 @@ export async function readDecisionForReader(id: number, userId: number, db: DbOr
 }
 
 type HistoryRow = {
+  calibrationInForce: number | null
   events: (Omit<Awaited<ReturnType<typeof listEvents>>[number], 'createdAt'> & { createdAt: string })[]
   revisions: (Omit<Awaited<ReturnType<typeof listRevisions>>[number], 'createdAt'> & { createdAt: string })[]
 }
 
-/** A decision's events and revisions (with who made them), in one query. */
+/**
+ * A decision's events and revisions (with who made them), in one query; with the version of the
+ * team calibration in force, so the page's calibrated estimate needs no query of its own.
+ */
 export async function readHistory(decisionId: number, db: DbOrTx = useDb()) {
   const { rows } = await db.execute<HistoryRow>(sql`SELECT
+    (SELECT max(version) FROM calibration_adoptions) AS "calibrationInForce",
     (SELECT coalesce(json_agg(json_build_object(
         'id', e.id, 'seq', e.seq, 'type', e.type, 'actorRole', e.actor_role, 'payload', e.payload,
         'createdAt', e.created_at, 'hash', e.hash, 'prevHash', e.prev_hash, 'actor', json_build_object('id', u.id, 'name', u.name)
@@ -179,19 +184,26 @@ export async function readHistory(decisionId: number, db: DbOrTx = useDb()) {
       FROM decision_revisions r JOIN users u ON u.id = r.created_by WHERE r.decision_id = ${decisionId}) AS revisions`)
   const history = rows[0]!
   return {
+    calibrationInForce: history.calibrationInForce,
     events: history.events.map(e => ({ ...e, id: Number(e.id), createdAt: new Date(e.createdAt) })),
     revisions: history.revisions.map(r => ({ ...r, createdAt: new Date(r.createdAt) })),
   }
 }
 
-/** Everything the decision page shows, with what the signed-in user may do: the guard's read plus one query. */
+/**
+ * Everything the decision page shows, with what the signed-in user may do: the guard's read plus
+ * one query; and the calibration version in force, for the calibrated estimate beside the advice.
+ */
 export async function decisionDetail(found: Awaited<ReturnType<typeof readDecisionForReader>>, user: SessionUser) {
-  const { events, revisions: revisionList } = await readHistory(found.decision.id)
+  const { events, revisions: revisionList, calibrationInForce } = await readHistory(found.decision.id)
   return {
-    decision: found.decision,
-    project: found.project,
-    revisions: revisionList,
-    events,
-    permissions: decisionPermissions(user, { authorId: found.decision.author.id, status: found.decision.status }, found.isMember),
+    calibrationInForce,
+    detail: {
+      decision: found.decision,
+      project: found.project,
+      revisions: revisionList,
+      events,
+      permissions: decisionPermissions(user, { authorId: found.decision.author.id, status: found.decision.status }, found.isMember),
+    },
   }
 }
