@@ -1,13 +1,18 @@
+import { fileURLToPath } from 'node:url'
 import tailwindcss from '@tailwindcss/vite'
 
 // EDDY_BUILD_SLOT gives a parallel build its own folders (several developers on one machine).
 const slot = process.env.EDDY_BUILD_SLOT
+const sharedDir = fileURLToPath(new URL('./shared/', import.meta.url))
 
 export default defineNuxtConfig({
   compatibilityDate: '2025-07-15',
   ...(slot ? { buildDir: `.nuxt-${slot}` } : {}),
   nitro: {
     ...(slot ? { output: { dir: `.output-${slot}` } } : {}),
+    // Every built script and stylesheet also as .gz and .br beside it; the static handler sends
+    // the one the browser accepts.
+    compressPublicAssets: { gzip: true, brotli: true },
     // The PDF record embeds these fonts (server/utils/report/fonts.ts); the tracer cannot see a path
     // built at run time, so name them.
     externals: {
@@ -20,7 +25,17 @@ export default defineNuxtConfig({
   modules: ['@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint', 'nuxt-security'],
   eslint: { config: { stylistic: false } },
   css: ['~/assets/css/main.css'],
-  vite: { plugins: [tailwindcss()] },
+  vite: {
+    plugins: [tailwindcss()],
+    build: {
+      rollupOptions: {
+        // shared/ is pure code (the engine validates its ruleset when loaded, nothing else): a module
+        // whose exports a page does not use is left out, so importing approach labels from the
+        // engine's index does not ship the engine, its ruleset and their parsers to that page.
+        treeshake: { moduleSideEffects: id => !id.startsWith(sharedDir) },
+      },
+    },
+  },
   app: {
     head: {
       title: 'Eddyledger',
@@ -100,4 +115,12 @@ export default defineNuxtConfig({
     '/api/**': { security: { headers: { contentSecurityPolicy: false } } },
   },
   typescript: { strict: true },
+  hooks: {
+    // No prefetch hints for dynamically imported chunks (other pages, lazy components): the
+    // browser downloads what the page shows, and the rest when it is used. Links to other pages
+    // still prefetch their page as they come into view.
+    'build:manifest': (manifest) => {
+      for (const chunk of Object.values(manifest)) chunk.prefetch = false
+    },
+  },
 })

@@ -5,7 +5,7 @@ import type { InternalApi } from 'nitropack/types'
 export type ApiResponse<Route extends keyof InternalApi, Method extends keyof InternalApi[Route] = 'get' & keyof InternalApi[Route]> =
   InternalApi[Route][Method]
 
-export type AuditRow = ApiResponse<'/api/audit/decisions'>['decisions'][number]
+export type AuditRow = ApiResponse<'/api/audit/decisions'>['items'][number]
 export type ChainCheck = ApiResponse<'/api/decisions/:id/verify'>
 export type TimelineEvent = ApiResponse<'/api/decisions/:id/events'>['events'][number]
 export type OverviewProjectRow = ApiResponse<'/api/overview'>['compute']['projects'][number]

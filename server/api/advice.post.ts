@@ -1,4 +1,3 @@
-import { advise } from '#shared/rules'
 import { adviceRequestSchema } from '#shared/schemas/decisions'
 
 // A preview: the engine's advice for a case under the published ruleset, nothing saved; with the
@@ -6,6 +5,6 @@ import { adviceRequestSchema } from '#shared/schemas/decisions'
 export default defineEventHandler(async (event) => {
   await requireUser(event)
   const { caseInput } = await readValidatedBody(event, zodValidator(adviceRequestSchema))
-  const advice = advise(caseInput, { ruleset: await publishedRuleset() })
+  const advice = adviceFor(caseInput, await publishedRuleset())
   return { advice, calibration: await calibrationFor(advice) }
 })

@@ -2,9 +2,9 @@
 // so scripts under plain Node (tsx) can load it too.
 import { sql } from 'drizzle-orm'
 import {
-  bigint, bigserial, boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
+  bigint, bigserial, boolean, date, doublePrecision, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, serial, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core'
-import type { Advice, CaseInput, Rule, Ruleset } from '../../shared/rules'
+import type { Advice, ApproachId, CaseInput, Rule, Ruleset, WallTreatment } from '../../shared/rules'
 import type { EnteredCase } from '../../shared/schemas/case-form'
 import type { DecisionEventPayload, DecisionOverride, RequestedChoice } from '../../shared/types/decisions'
 import type { ExpectedRecommendation, RulesetEventPayload } from '../../shared/types/rulesets'
@@ -134,6 +134,96 @@ export const decisionEvents = pgTable('decision_events', {
   prevHash: text('prev_hash').notNull(),
   hash: text('hash').notNull(),
 }, t => [uniqueIndex('decision_events_seq_unique').on(t.decisionId, t.seq)])
+
+// One row per decision: the figures the lists, the audit and the overview read, in typed columns
+// with indexes for each filter and sort, so no request re-reads the advice of every decision. It
+// is derived from the decision, its current revision and its events by the view
+// decision_summary_source (custom migration) and rewritten in the same transaction as every change
+// (server/utils/decisions/summary.ts); rows are never deleted (trigger).
+export const decisionSummaries = pgTable('decision_summaries', {
+  decisionId: integer('decision_id').primaryKey().references(() => decisions.id),
+  projectId: integer('project_id').notNull().references(() => projects.id),
+  title: text('title').notNull(),
+  status: decisionStatusEnum('status').notNull(),
+  version: integer('version').notNull(),
+  revision: integer('revision').notNull(),
+  unitSystem: unitSystemEnum('unit_system').notNull(),
+  authorId: integer('author_id').notNull().references(() => users.id),
+  // Who approved or overrode it, and when; null until then.
+  reviewerId: integer('reviewer_id').references(() => users.id),
+  // The reviewer who sent it back, while that is the last thing that happened to it (comments aside).
+  changesRequestedBy: integer('changes_requested_by').references(() => users.id),
+  // What the decision stands for: the reviewer's override, else the engineer's requested choice,
+  // else the engine's recommendation.
+  approach: text('approach').$type<ApproachId>().notNull(),
+  model: text('model').notNull(),
+  wallTreatment: text('wall_treatment').$type<WallTreatment>().notNull(),
+  // What the engine recommended, for the override pairs.
+  engineApproach: text('engine_approach').$type<ApproachId>().notNull(),
+  overridden: boolean('overridden').notNull(),
+  overrideReason: text('override_reason'),
+  disagreedRules: text('disagreed_rules').array().notNull(),
+  reynolds: doublePrecision('reynolds').notNull(),
+  // The engine's core-hours for the approach it stands for, and the case's budget.
+  coreHours: doublePrecision('core_hours'),
+  budgetCoreHours: doublePrecision('budget_core_hours').notNull(),
+  rulesetId: text('ruleset_id').notNull(),
+  rulesetVersion: text('ruleset_version').notNull(),
+  engineVersion: text('engine_version').notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull(),
+  submittedAt: timestamp('submitted_at', { withTimezone: true }),
+  reviewedAt: timestamp('reviewed_at', { withTimezone: true }),
+}, t => [
+  // Lists, newest activity first: all, by project, by status, by both (keyset on updated_at, id).
+  index('decision_summaries_updated_idx').on(t.updatedAt, t.decisionId),
+  index('decision_summaries_project_updated_idx').on(t.projectId, t.updatedAt, t.decisionId),
+  index('decision_summaries_status_updated_idx').on(t.status, t.updatedAt, t.decisionId),
+  index('decision_summaries_project_status_updated_idx').on(t.projectId, t.status, t.updatedAt, t.decisionId),
+  // The review queue: decisions in review, longest waiting first; with the project and author
+  // its filter reads, so counting the queue reads the index alone.
+  index('decision_summaries_queue_idx').on(t.submittedAt, t.decisionId, t.projectId, t.authorId).where(sql`${t.status} = 'in_review'`),
+  // Search by author; by title through a trigram index (pg_trgm, in the custom migration).
+  index('decision_summaries_author_updated_idx').on(t.authorId, t.updatedAt, t.decisionId),
+  // The overview's days at either end of a range that do not fill a month (see decision_tallies).
+  index('decision_summaries_created_idx').on(t.createdAt),
+  index('decision_summaries_project_created_idx').on(t.projectId, t.createdAt),
+  // The overview's disagreed rules at those ends.
+  index('decision_summaries_overridden_created_idx').on(t.createdAt).where(sql`${t.overridden}`),
+])
+
+// The overview's running totals per project and calendar month (UTC) of creation, by what the
+// decisions stand for: kept by a trigger on decision_summaries in the same transaction (custom
+// migration), so the overview adds up a few thousand rows, not every decision. Sums are numeric:
+// a decision moving between groups subtracts exactly what it had added.
+export const decisionTallies = pgTable('decision_tallies', {
+  month: date('month', { mode: 'string' }).notNull(),
+  projectId: integer('project_id').notNull().references(() => projects.id),
+  status: decisionStatusEnum('status').notNull(),
+  approach: text('approach').$type<ApproachId>().notNull(),
+  model: text('model').notNull(),
+  engineApproach: text('engine_approach').$type<ApproachId>().notNull(),
+  overridden: boolean('overridden').notNull(),
+  decisions: integer('decisions').notNull(),
+  coreHours: numeric('core_hours').notNull(),
+  budgetCoreHours: numeric('budget_core_hours').notNull(),
+  overBudget: integer('over_budget').notNull(),
+}, t => [
+  primaryKey({ columns: [t.month, t.projectId, t.status, t.approach, t.model, t.engineApproach, t.overridden] }),
+  index('decision_tallies_project_idx').on(t.projectId, t.month),
+])
+
+// How often overriding reviewers named each rule, per project, month and status, kept the same way.
+export const decisionRuleTallies = pgTable('decision_rule_tallies', {
+  month: date('month', { mode: 'string' }).notNull(),
+  projectId: integer('project_id').notNull().references(() => projects.id),
+  status: decisionStatusEnum('status').notNull(),
+  rule: text('rule').notNull(),
+  decisions: integer('decisions').notNull(),
+}, t => [
+  primaryKey({ columns: [t.month, t.projectId, t.status, t.rule] }),
+  index('decision_rule_tallies_project_idx').on(t.projectId, t.month),
+])
 
 // Outgoing mail is written in the same transaction as the action, then delivered after commit and
 // retried on failure, so a failed send never loses the action.

@@ -14,6 +14,7 @@ import { DECISION_STATUSES } from '../utils/decision-status'
 import { enteredCaseSchema, enteredFromCaseInput, unitSystemSchema, validateCaseForm } from './case-form'
 import { impliedTreatment, requestedChoiceSchema, yPlusConflict } from './requested-choice'
 import { INT32_MAX, positiveInt, storable } from './common'
+import { pageQuerySchema } from './pagination'
 
 // A review comment must say why: a sentence, not a tick.
 export const MIN_REVIEW_COMMENT = 15
@@ -143,11 +144,7 @@ export const decisionListQuerySchema = z.object({
   status: z.enum(DECISION_STATUSES, {
     errorMap: () => ({ message: `Status must be one of: ${DECISION_STATUSES.join(', ')}.` }),
   }).optional(),
-  page: z.coerce.number({ invalid_type_error: 'Page must be a number.' }).int('Page must be a whole number.')
-    .min(1, 'Page starts at 1.').max(INT32_MAX, `Page is at most ${INT32_MAX}.`).default(1),
-  pageSize: z.coerce.number({ invalid_type_error: 'Page size must be a number.' }).int('Page size must be a whole number.')
-    .min(1, 'Page size is at least 1.').max(100, 'Page size is at most 100.').default(20),
-})
+}).merge(pageQuerySchema(100, 20))
 export type DecisionListQuery = z.infer<typeof decisionListQuerySchema>
 
 export const revisionParamsSchema = z.object({

@@ -3,22 +3,28 @@
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { type ApiClient, signIn } from '../support/api-client'
+import { APPROACH_LABELS, MODELS_BY_APPROACH, WALL_TREATMENTS_BY_APPROACH, WALL_TREATMENT_LABELS, type ApproachId } from '#shared/rules'
 import { act, createDraft, projectIds, tamperWithEvent, uniqueTitle } from '../support/decisions'
+import { allPages } from '../support/pages'
 
 type AuditRow = {
   id: number; projectId: number; projectCode: string; title: string; status: string; revision: number
-  author: { id: number; name: string }; eventCount: number; lastEventAt: string; lastHash: string
-  engineVersion: string; rulesetVersion: string; approach: string; unitSystem: string; coreHours: number; budgetCoreHours: number
+  author: { id: number; name: string }; reviewer: { id: number; name: string } | null; eventCount: number; lastEventAt: string; lastHash: string
+  approach: string; model: string; wallTreatment: string; overrideReason: string | null; unitSystem: string; coreHours: number; budgetCoreHours: number
+  engineVersion: string; rulesetVersion: string; createdAt: string; updatedAt: string; submittedAt: string | null; reviewedAt: string | null
   chain: { valid: boolean; checked: number; brokenAt: number | null }
 }
 
 const CSV_HEADER = [
-  'decision id', 'project', 'title', 'status', 'author', 'revisions', 'events', 'chain valid', 'chain broken at event',
-  'last hash', 'engine version', 'ruleset version',
+  'project', 'decision', 'title', 'status', 'approach', 'model', 'wall treatment', 'engine recommended', 'author', 'reviewer',
+  'override reason', 'created', 'submitted', 'reviewed', 'last change', 'ruleset version', 'engine version', 'revisions',
+  'events', 'chain valid', 'chain broken at event', 'last hash',
+  // After the run (records that stand; retracted ones counted apart).
   'wall checks', 'latest wall check in band', 'latest wall check verdict', 'latest wall check review', 'latest wall check sha256',
   'grid studies', 'latest fine-grid GCI', 'CPU runs', 'actual core-hours', 'estimated core-hours of the runs', 'retracted records',
-  'approach', 'unit system', 'estimated core-hours of the decision', 'core-hour budget',
+  'unit system', 'estimated core-hours of the decision', 'core-hour budget',
 ]
+const column = (name: string) => CSV_HEADER.indexOf(name)
 
 // A small RFC 4180 reader, so the export is checked without the server's writer.
 function parseCsv(text: string): string[][] {
@@ -48,22 +54,20 @@ let reviewer: ApiClient
 let project: Record<string, number>
 let owner: pg.Client
 let mine: { id: number }
+let overridden: { id: number; [key: string]: any }
 // A title that needs quoting, and one a spreadsheet would run as a formula.
 const awkwardTitle = uniqueTitle('Supply duct, "north" riser')
 const formulaTitle = `=1+1 ${uniqueTitle('duct')}`
 
 async function allAuditRows(client: ApiClient, filter = ''): Promise<AuditRow[]> {
-  const rows: AuditRow[] = []
-  for (let page = 1; ; page++) {
-    const res = await client.get(`/api/audit/decisions?pageSize=50&page=${page}${filter}`)
-    expect(res.status, JSON.stringify(res.body)).toBe(200)
-    rows.push(...res.body.decisions)
-    if (page * 50 >= res.body.total) return rows
-  }
+  const { rows, first } = await allPages<AuditRow>(client, `/api/audit/decisions?${filter}`)
+  // The demo database is small: every total is counted exactly.
+  expect(first).toMatchObject({ total: rows.length, totalIsEstimate: false })
+  return rows
 }
 
 async function projectTotal(projectId: number, status = '') {
-  return (await auditor.get(`/api/projects/${projectId}/decisions?pageSize=1${status ? `&status=${status}` : ''}`)).body.total as number
+  return (await auditor.get(`/api/projects/${projectId}/decisions?limit=1${status ? `&status=${status}` : ''}`)).body.total as number
 }
 
 beforeAll(async () => {
@@ -77,6 +81,14 @@ beforeAll(async () => {
   await act(reviewer, `/api/decisions/${draft.id}/approve`, { version: submitted.version })
   mine = draft
   await createDraft(engineer, project['KB-101']!, { title: formulaTitle })
+  // An override, so the export carries its reason.
+  const other = await createDraft(engineer, project['KB-103']!, { title: uniqueTitle('Audit override') })
+  const inReview = await act(engineer, `/api/decisions/${other.id}/submit`, { version: other.version })
+  const approach: ApproachId = other.advice.recommendation.approach === 'urans' ? 'rans' : 'urans'
+  overridden = await act(reviewer, `/api/decisions/${other.id}/override`, {
+    version: inReview.version, approach, model: MODELS_BY_APPROACH[approach][0], wallTreatment: WALL_TREATMENTS_BY_APPROACH[approach][0],
+    comment: 'Unsteady loads matter here, so "steady" will not do.',
+  })
 })
 
 afterAll(async () => {
@@ -101,9 +113,16 @@ describe('GET /api/audit/decisions', () => {
       expect(row.chain, `decision ${row.id}`).toEqual((await auditor.get(`/api/decisions/${row.id}/verify`)).body)
     }
     const own = rows.find(r => r.id === mine.id)!
-    expect(own).toMatchObject({ projectCode: 'KB-102', title: awkwardTitle, status: 'approved', eventCount: 4, chain: { valid: true, checked: 4, brokenAt: null, problems: [] } })
+    expect(own).toMatchObject({
+      projectCode: 'KB-102', title: awkwardTitle, status: 'approved', eventCount: 4, chain: { valid: true, checked: 4, brokenAt: null, problems: [] },
+      reviewer: { name: 'Priya Raman' }, overrideReason: null,
+    })
+    expect(Date.parse(own.reviewedAt!)).toBeGreaterThan(Date.parse(own.submittedAt!))
+    // Latest activity first.
+    const times = rows.map(r => Date.parse(r.updatedAt))
+    expect(times).toEqual([...times].sort((a, b) => b - a))
     // The lead reads the same list.
-    expect((await lead.get('/api/audit/decisions?pageSize=50')).body.decisions).toEqual(rows.slice(0, 50))
+    expect((await lead.get('/api/audit/decisions?limit=50')).body.items).toEqual(rows.slice(0, 50))
   })
 
   it('filters by project and status, and pages', async () => {
@@ -115,13 +134,28 @@ describe('GET /api/audit/decisions', () => {
     for (const id of Object.values(project)) draftTotal += await projectTotal(id, 'draft')
     expect(drafts.length).toBe(draftTotal)
     expect(drafts.every(r => r.status === 'draft')).toBe(true)
-    const first = (await auditor.get('/api/audit/decisions?pageSize=2&page=1')).body
-    const second = (await auditor.get('/api/audit/decisions?pageSize=2&page=2')).body
-    expect(first.decisions).toHaveLength(2)
-    expect(second.decisions[0].id).not.toBe(first.decisions[1].id)
+    // Pages follow on from the cursor, without overlap, whatever the page size.
+    const first = (await auditor.get('/api/audit/decisions?limit=2')).body
+    const second = (await auditor.get(`/api/audit/decisions?limit=2&cursor=${first.nextCursor}`)).body
+    expect(first.items).toHaveLength(2)
+    expect(second.items.map((r: AuditRow) => r.id)).toEqual((await allAuditRows(auditor)).slice(2, 4).map(r => r.id))
     expect(second.total).toBe(first.total)
   })
 
+  it('searches by decision number, title and author', async () => {
+    const byNumber = await allAuditRows(auditor, `q=%23${mine.id}`)
+    expect(byNumber.map(r => r.id)).toContain(mine.id)
+    expect(byNumber.every(r => r.id === mine.id || r.title.includes(String(mine.id)))).toBe(true)
+    const byTitle = await allAuditRows(auditor, `q=${encodeURIComponent('"north" RISER')}`)
+    expect(byTitle.map(r => r.id)).toEqual([mine.id])
+    const byAuthor = await allAuditRows(auditor, 'q=lindqvist')
+    expect(byAuthor.length).toBeGreaterThan(0)
+    expect(byAuthor.every(r => r.author.name === 'Tomas Lindqvist')).toBe(true)
+    // LIKE's wildcards are searched for as typed.
+    expect(await allAuditRows(auditor, 'q=%25%25%25')).toEqual([])
+    // The search narrows the filters, it does not replace them.
+    expect(await allAuditRows(auditor, `q=%23${mine.id}&status=draft`)).toEqual([])
+  })
   it.each(['engineer', 'reviewer', 'admin'])('refuses %s with 403, the list and the CSV', async (role) => {
     const client = await signIn(role)
     for (const path of ['/api/audit/decisions', '/api/audit/decisions.csv']) {
@@ -132,8 +166,10 @@ describe('GET /api/audit/decisions', () => {
   })
 
   it.each([
-    ['pageSize=1000', /Page size is at most 50/],
-    ['page=0', /Page starts at 1/],
+    ['limit=1000', /limit is at most 50/],
+    ['limit=0', /limit is at least 1/],
+    ['cursor=not-a-cursor', /cursor is not one this server gave/],
+    ['q=' + 'x'.repeat(101), /search is at most 100 characters/],
     ['status=signed', /Status must be one of/],
     ['projectId=x', /project must be given by its id/],
   ])('answers 400 with a message for %s', async (query, message) => {
@@ -160,28 +196,50 @@ describe('GET /api/audit/decisions.csv', () => {
     const [header, ...lines] = parseCsv(res.body as string)
     expect(header).toEqual(CSV_HEADER)
     const rows = await allAuditRows(auditor)
-    expect(lines.map(l => Number(l[0]))).toEqual(rows.map(r => r.id))
+    expect(lines.map(l => Number(l[column('decision')]))).toEqual(rows.map(r => r.id))
     for (const [i, line] of lines.entries()) {
       const r = rows[i]!
       expect(line).toHaveLength(CSV_HEADER.length)
-      expect(line[1]).toBe(r.projectCode)
-      expect(line[5]).toBe(String(r.revision))
-      expect(line[6]).toBe(String(r.eventCount))
-      expect(line[7]).toBe(r.chain.valid ? 'yes' : 'no')
-      expect(line[9]).toBe(r.lastHash)
-      expect(line[10]).toBe(r.engineVersion)
+      expect(line[column('project')]).toBe(r.projectCode)
+      expect(line[column('approach')]).toBe(APPROACH_LABELS[r.approach as ApproachId])
+      expect(line[column('model')]).toBe(r.model)
+      expect(line[column('created')]).toBe(r.createdAt)
+      expect(line[column('last change')]).toBe(r.updatedAt)
+      expect(line[column('revisions')]).toBe(String(r.revision))
+      expect(line[column('events')]).toBe(String(r.eventCount))
+      expect(line[column('chain valid')]).toBe(r.chain.valid ? 'yes' : 'no')
+      expect(line[column('last hash')]).toBe(r.lastHash)
+      expect(line[column('engine version')]).toBe(r.engineVersion)
+      expect(line[column('ruleset version')]).toBe(r.rulesetVersion)
       // Numbers a spreadsheet reads: plain digits, the estimate to two significant figures.
-      const at = CSV_HEADER.indexOf('approach')
-      expect(line[at]).toBe(r.approach)
-      expect(line[at + 1]).toBe(r.unitSystem)
-      expect(Number(line[at + 2])).toBe(Number(r.coreHours.toPrecision(2)))
-      expect(line[at + 2]).toMatch(/^[\d.e+-]+$/)
-      expect(Number(line[at + 3])).toBe(r.budgetCoreHours)
+      expect(line[column('unit system')]).toBe(r.unitSystem)
+      expect(Number(line[column('estimated core-hours of the decision')])).toBe(Number(r.coreHours.toPrecision(2)))
+      expect(line[column('estimated core-hours of the decision')]).toMatch(/^[\d.e+-]+$/)
+      expect(Number(line[column('core-hour budget')])).toBe(r.budgetCoreHours)
     }
-    const own = lines.find(l => Number(l[0]) === mine.id)!
-    expect(own.slice(1, 9)).toEqual(['KB-102', awkwardTitle, 'Approved', 'Ada Ferreira', '1', '4', 'yes', ''])
+    const own = lines.find(l => Number(l[column('decision')]) === mine.id)!
+    expect([own[0], own[2], own[3], own[8], own[9], own[10], own[17], own[18], own[19], own[20]])
+      .toEqual(['KB-102', awkwardTitle, 'Approved', 'Ada Ferreira', 'Priya Raman', '', '1', '4', 'yes', ''])
+    const row = rows.find(r => r.id === mine.id)!
+    expect(own[column('submitted')]).toBe(row.submittedAt)
+    expect(own[column('reviewed')]).toBe(row.reviewedAt)
+    // The override: the reviewer's approach, model and wall treatment, the engine's and the reason.
+    const over = lines.find(l => Number(l[column('decision')]) === overridden.id)!
+    const choice = overridden.override
+    expect(over[column('approach')]).toBe(APPROACH_LABELS[choice.approach as ApproachId])
+    expect(over[column('wall treatment')]).toBe(WALL_TREATMENT_LABELS[choice.wallTreatment as keyof typeof WALL_TREATMENT_LABELS])
+    expect(over[column('engine recommended')]).toBe(APPROACH_LABELS[overridden.advice.recommendation.approach as ApproachId])
+    expect(over[column('override reason')]).toBe('Unsteady loads matter here, so "steady" will not do.')
     // Formula text is defused for spreadsheets: an apostrophe before it.
-    expect(lines.some(l => l[2] === `'${formulaTitle}`)).toBe(true)
+    expect(lines.some(l => l[column('title')] === `'${formulaTitle}`)).toBe(true)
+  })
+
+  it('exports what the filters and the search select', async () => {
+    const csv = parseCsv((await auditor.get(`/api/audit/decisions.csv?projectId=${project['KB-102']}&status=approved`)).body as string)
+    const expected = await allAuditRows(auditor, `projectId=${project['KB-102']}&status=approved`)
+    expect(csv.slice(1).map(l => Number(l[column('decision')]))).toEqual(expected.map(r => r.id))
+    const searched = parseCsv((await auditor.get(`/api/audit/decisions.csv?q=%23${mine.id}`)).body as string)
+    expect(searched.slice(1).map(l => Number(l[column('decision')]))).toContain(mine.id)
   })
 })
 
@@ -199,8 +257,9 @@ describe('tampering', () => {
     expect(after.find(r => r.id === mine.id)!.chain).toEqual({ valid: false, checked: 3, brokenAt: tamperedId, problems: [] })
 
     const csv = parseCsv((await auditor.get('/api/audit/decisions.csv')).body as string)
-    const own = csv.find(l => Number(l[0]) === mine.id)!
-    expect(own.slice(7, 9)).toEqual(['no', String(tamperedId)])
-    expect(csv.slice(1).filter(l => l[7] === 'no').map(l => Number(l[0])).sort()).toEqual(brokenAfter.map(r => r.id).sort())
+    const own = csv.find(l => Number(l[column('decision')]) === mine.id)!
+    expect([own[column('chain valid')], own[column('chain broken at event')]]).toEqual(['no', String(tamperedId)])
+    expect(csv.slice(1).filter(l => l[column('chain valid')] === 'no').map(l => Number(l[column('decision')])).sort())
+      .toEqual(brokenAfter.map(r => r.id).sort())
   })
 })

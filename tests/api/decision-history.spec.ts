@@ -8,6 +8,7 @@ import { advise, compileRuleset, type Ruleset } from '#shared/rules'
 import type { ApiClient} from '../support/api-client';
 import { signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, tamperWithEvent } from '../support/decisions'
+import { allPages } from '../support/pages'
 
 type ApiEvent = {
   id: number; seq: number; type: string; actor: { id: number; name: string }; actorRole: string
@@ -82,7 +83,7 @@ describe('the hash chain', () => {
       return compileRuleset({ id: r.key, version: r.version, baseScores: r.baseScores, baseWhy: r.baseWhy, rules: r.rules })
     }
     for (const code of ['KB-101', 'KB-102', 'KB-103', 'KB-104']) {
-      const { decisions } = (await auditor.get(`/api/projects/${project[code]}/decisions?pageSize=100`)).body
+      const { rows: decisions } = await allPages(auditor, `/api/projects/${project[code]}/decisions`, 100)
       for (const d of decisions as { id: number; status: string; createdAt: string }[]) {
         // The seed dates its decisions over the fortnight before; anything newer was made by a test.
         if (Date.parse(d.createdAt) > Date.now() - 12 * 3600_000) continue

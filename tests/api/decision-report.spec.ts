@@ -10,6 +10,7 @@ import { formatInput } from '#shared/utils/format'
 import { APPROACH_LABELS, GENERAL_CAUTIONS, type ApproachId } from '#shared/rules'
 import { ApiClient, signIn } from '../support/api-client'
 import { projectIds } from '../support/decisions'
+import { allPages } from '../support/pages'
 
 type Detail = {
   decision: { id: number; title: string; status: string; version: number; advice: any; override: any; entered: any; unitSystem: 'si' | 'imperial'; caseInput: any }
@@ -53,13 +54,7 @@ beforeAll(async () => {
   const projects = await projectIds(c.auditor)
   for (const [name, seeded] of Object.entries(SEEDED) as [keyof typeof SEEDED, (typeof SEEDED)[keyof typeof SEEDED]][]) {
     // Other files add decisions to the demo projects: read every page, take the seeded (oldest) one.
-    const found: { id: number; title: string }[] = []
-    for (let page = 1; ; page++) {
-      const res = await c.auditor.get(`/api/projects/${projects[seeded.code]}/decisions?pageSize=100&page=${page}`)
-      expect(res.status).toBe(200)
-      found.push(...res.body.decisions)
-      if (page * res.body.pageSize >= res.body.total) break
-    }
+    const { rows: found } = await allPages<{ id: number; title: string }>(c.auditor, `/api/projects/${projects[seeded.code]}/decisions`, 100)
     const match = found.filter(d => d.title === seeded.title).sort((a, b) => a.id - b.id)[0]
     expect(match, seeded.title).toBeDefined()
     ids[name] = match!.id

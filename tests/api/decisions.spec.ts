@@ -7,6 +7,7 @@ import { advise, caseInputSchema, ENGINE_VERSION, RULESET } from '#shared/rules'
 import type { ApiClient} from '../support/api-client';
 import { signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, createDraft, projectIds, uniqueTitle } from '../support/decisions'
+import { allPages } from '../support/pages'
 
 // RFC 8785 canonical JSON hashed with SHA-256 (FIPS 180-4), computed here independently of the server.
 const sha256OfCanonical = (value: unknown) => createHash('sha256').update(canonicalize(value)!).digest('hex')
@@ -28,13 +29,13 @@ beforeAll(async () => {
 
 describe('POST /api/advice', () => {
   it('previews the engine\'s advice for any signed-in user, and saves nothing', async () => {
-    const before = (await auditor.get(`/api/projects/${project['KB-102']}/decisions?pageSize=1`)).body.total
+    const before = (await auditor.get(`/api/projects/${project['KB-102']}/decisions?limit=1`)).body.total
     const res = await auditor.post('/api/advice', { caseInput: DUCT_CASE })
     expect(res.status).toBe(200)
     // Expected: the engine itself, run in this process (advise() is deterministic).
     expect(res.body.advice).toEqual(JSON.parse(JSON.stringify(advise(DUCT_CASE))))
     expect(res.body.advice.cautions.length).toBeGreaterThan(0)
-    expect((await auditor.get(`/api/projects/${project['KB-102']}/decisions?pageSize=1`)).body.total).toBe(before)
+    expect((await auditor.get(`/api/projects/${project['KB-102']}/decisions?limit=1`)).body.total).toBe(before)
   })
 
   it('answers a bad case with 400 and messages keyed by the field path', async () => {
@@ -104,7 +105,7 @@ describe('saving a decision', () => {
   })
 
   it('answers a malformed body with 400 and per-field messages, saving nothing', async () => {
-    const before = (await engineer.get(`/api/projects/${project['KB-102']}/decisions?pageSize=1`)).body.total
+    const before = (await engineer.get(`/api/projects/${project['KB-102']}/decisions?limit=1`)).body.total
     const res = await engineer.post(`/api/projects/${project['KB-102']}/decisions`, {
       title: '',
       caseInput: { ...DUCT_CASE, velocity: 'fast', quantities: [] },
@@ -112,7 +113,7 @@ describe('saving a decision', () => {
     expect(res.status).toBe(400)
     expect(Object.keys(res.body.data.fieldErrors).sort()).toEqual(['caseInput.quantities', 'caseInput.velocity', 'title'])
     expect(res.body.data.fieldErrors['caseInput.velocity'][0]).toMatch(/must be a number/i)
-    expect((await engineer.get(`/api/projects/${project['KB-102']}/decisions?pageSize=1`)).body.total).toBe(before)
+    expect((await engineer.get(`/api/projects/${project['KB-102']}/decisions?limit=1`)).body.total).toBe(before)
   })
 
   it('lets only engineer and reviewer members create decisions', async () => {
@@ -177,39 +178,48 @@ describe('listing and reading', () => {
   it('lists a project\'s decisions newest first, paginated and filtered by status', async () => {
     const older = await createDraft(engineer, project['KB-103']!, { title: uniqueTitle('Older'), caseInput: CONDENSER_CASE })
     const newer = await createDraft(engineer, project['KB-103']!, { title: uniqueTitle('Newer'), caseInput: CONDENSER_CASE })
-    const list = (await engineer.get(`/api/projects/${project['KB-103']}/decisions?pageSize=2`)).body
-    expect(list).toMatchObject({ page: 1, pageSize: 2 })
-    expect(list.decisions.map((d: { id: number }) => d.id)).toEqual([newer.id, older.id])
-    const summary = list.decisions[0]
+    const list = (await engineer.get(`/api/projects/${project['KB-103']}/decisions?limit=2`)).body
+    expect(list).toMatchObject({ totalIsEstimate: false })
+    expect(list.nextCursor).toEqual(expect.any(String))
+    expect(list.items.map((d: { id: number }) => d.id)).toEqual([newer.id, older.id])
+    const summary = list.items[0]
     const advice = advise(CONDENSER_CASE)
     const chosen = advice.approaches.find(a => a.id === advice.recommendation.approach)!
     expect(summary).toMatchObject({
-      id: newer.id, projectId: project['KB-103'], status: 'draft', version: 1, revision: 1,
-      author: { name: 'Ada Ferreira' },
+      id: newer.id, projectId: project['KB-103'], projectCode: 'KB-103', status: 'draft', version: 1, revision: 1,
+      author: { name: 'Ada Ferreira' }, reviewer: null,
       approach: advice.recommendation.approach,
       model: advice.recommendation.model,
+      wallTreatment: advice.recommendation.wallTreatment,
+      overridden: false,
       budgetCoreHours: 200_000,
     })
     expect(summary.reynolds).toBeCloseTo(advice.reynolds, 6)
     expect(summary.coreHours).toBeCloseTo(chosen.coreHours, 6)
     expect(summary).not.toHaveProperty('advice')
 
-    const page2 = (await engineer.get(`/api/projects/${project['KB-103']}/decisions?pageSize=1&page=2`)).body
-    expect(page2.decisions.map((d: { id: number }) => d.id)).toEqual([older.id])
+    // The next page starts after the last row of this one.
+    const page2 = (await engineer.get(`/api/projects/${project['KB-103']}/decisions?limit=1&cursor=${list.nextCursor}`)).body
+    const all = (await allPages(engineer, `/api/projects/${project['KB-103']}/decisions`, 1)).rows.map((d: { id: number }) => d.id)
+    expect(page2.items.map((d: { id: number }) => d.id)).toEqual(all.slice(2, 3))
     expect(page2.total).toBe(list.total)
+    expect(all).toHaveLength(list.total)
+    expect(new Set(all).size).toBe(all.length)
     expect(list.total).toBeGreaterThanOrEqual(2)
 
     expect((await engineer.post(`/api/decisions/${older.id}/submit`, { version: 1 })).status).toBe(200)
-    const inReview = (await engineer.get(`/api/projects/${project['KB-103']}/decisions?status=in_review&pageSize=100`)).body
-    expect(inReview.decisions.map((d: { id: number }) => d.id)).toContain(older.id)
-    expect(inReview.decisions.every((d: { status: string }) => d.status === 'in_review')).toBe(true)
-    expect(inReview.total).toBe(inReview.decisions.length)
+    const inReview = (await engineer.get(`/api/projects/${project['KB-103']}/decisions?status=in_review&limit=100`)).body
+    expect(inReview.items.map((d: { id: number }) => d.id)).toContain(older.id)
+    expect(inReview.items.every((d: { status: string }) => d.status === 'in_review')).toBe(true)
+    expect(inReview.total).toBe(inReview.items.length)
+    // The submission moved it to the top: the latest activity first.
+    expect((await engineer.get(`/api/projects/${project['KB-103']}/decisions?limit=1`)).body.items[0]).toMatchObject({ id: older.id, version: 2, status: 'in_review' })
   })
 
   it('answers a bad list query with 400 and per-field messages', async () => {
-    const res = await engineer.get(`/api/projects/${project['KB-102']}/decisions?status=finished&page=0&pageSize=1000`)
+    const res = await engineer.get(`/api/projects/${project['KB-102']}/decisions?status=finished&cursor=abc&limit=1000`)
     expect(res.status).toBe(400)
-    expect(Object.keys(res.body.data.fieldErrors).sort()).toEqual(['page', 'pageSize', 'status'])
+    expect(Object.keys(res.body.data.fieldErrors).sort()).toEqual(['cursor', 'limit', 'status'])
     expect(res.body.data.fieldErrors.status[0]).toMatch(/draft, in_review/)
   })
 

@@ -2,9 +2,10 @@
 // through the decision API (the engine's advice and the reviewer's override as stored), not from
 // the overview's own SQL.
 import { beforeAll, describe, expect, it } from 'vitest'
-import { MODELS_BY_APPROACH, WALL_TREATMENTS_BY_APPROACH, type ApproachId } from '#shared/rules'
+import { MODELS_BY_APPROACH, RULESET, WALL_TREATMENTS_BY_APPROACH, type ApproachId } from '#shared/rules'
 import { type ApiClient, signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, uniqueTitle } from '../support/decisions'
+import { allPages } from '../support/pages'
 
 type Detail = {
   decision: {
@@ -30,26 +31,23 @@ let project: Record<string, number>
 async function readAllDecisions(): Promise<Row[]> {
   const rows: Row[] = []
   for (const id of Object.values(project)) {
-    for (let page = 1; ; page++) {
-      const list = (await lead.get(`/api/projects/${id}/decisions?pageSize=100&page=${page}`)).body
-      for (const { id: decisionId } of list.decisions as { id: number }[]) {
-        const { decision: d } = (await lead.get(`/api/decisions/${decisionId}`)).body as Detail
-        // The approach a decision stands for: the reviewer's when overridden, else the engineer's
-        // own when requested, else the engine's; its cost recomputed for that choice.
-        const approach = d.override?.approach ?? d.requested?.figures.approach ?? d.advice.recommendation.approach
-        const engineEntry = d.advice.approaches.find(a => a.id === approach)!
-        rows.push({
-          id: d.id, projectId: d.projectId, status: d.status, createdDay: d.createdAt.slice(0, 10),
-          overridden: d.override !== null,
-          approach,
-          model: d.override?.model ?? engineEntry.model,
-          engineApproach: d.advice.recommendation.approach,
-          coreHours: d.override ? (d.override.cost?.coreHours ?? engineEntry.coreHours) : (d.requested?.figures.cost.coreHours ?? engineEntry.coreHours),
-          budget: d.caseInput.budget.coreHours,
-          disagreedRules: d.override?.disagreedRules ?? [],
-        })
-      }
-      if (page * 100 >= list.total) break
+    const { rows: list } = await allPages<{ id: number }>(lead, `/api/projects/${id}/decisions`, 100)
+    for (const { id: decisionId } of list) {
+      const { decision: d } = (await lead.get(`/api/decisions/${decisionId}`)).body as Detail
+      // The approach a decision stands for: the reviewer's when overridden, else the engineer's
+      // own when requested, else the engine's; its cost recomputed for that choice.
+      const approach = d.override?.approach ?? d.requested?.figures.approach ?? d.advice.recommendation.approach
+      const engineEntry = d.advice.approaches.find(a => a.id === approach)!
+      rows.push({
+        id: d.id, projectId: d.projectId, status: d.status, createdDay: d.createdAt.slice(0, 10),
+        overridden: d.override !== null,
+        approach,
+        model: d.override?.model ?? engineEntry.model,
+        engineApproach: d.advice.recommendation.approach,
+        coreHours: d.override ? (d.override.cost?.coreHours ?? engineEntry.coreHours) : (d.requested?.figures.cost.coreHours ?? engineEntry.coreHours),
+        budget: d.caseInput.budget.coreHours,
+        disagreedRules: d.override?.disagreedRules ?? [],
+      })
     }
   }
   return rows
@@ -95,7 +93,11 @@ function expectOverview(body: any, rows: Row[], projectsInScope: number[]) {
   for (const p of body.overrides.pairs) expect(pairs.get(`${p.engineApproach} -> ${p.reviewerApproach}`)).toBe(p.count)
   const rules = tally(overridden.flatMap(r => r.disagreedRules), rule => rule)
   expect(body.overrides.disagreedRules.map((r: any) => r.count)).toEqual([...rules.values()].sort((a, b) => b - a).slice(0, 10))
-  for (const r of body.overrides.disagreedRules) expect(rules.get(r.rule)).toBe(r.count)
+  for (const r of body.overrides.disagreedRules) {
+    expect(rules.get(r.rule)).toBe(r.count)
+    // Named by the ruleset's title, so the page needs no ruleset of its own.
+    expect(r.title).toBe(RULESET.rules.find(rule => rule.id === r.rule)?.title ?? null)
+  }
 
   const sum = (list: Row[], value: (r: Row) => number) => list.reduce((s, r) => s + value(r), 0)
   // Compute counts the decisions that stand; a superseded one is counted through its successor.

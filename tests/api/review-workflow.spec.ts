@@ -6,6 +6,7 @@ import { advise, caseInputSchema, costFor, wallFor } from '#shared/rules'
 import type { ApiClient } from '../support/api-client'
 import { signIn } from '../support/api-client'
 import { CONDENSER_CASE, DUCT_CASE, act, createDraft, projectIds, uniqueTitle } from '../support/decisions'
+import { allPages } from '../support/pages'
 
 type Decision = { id: number; version: number; status: string; [key: string]: any }
 
@@ -239,7 +240,7 @@ describe('transitions', () => {
       payload: { approach: 'wmles', model: 'WALE', comment: expect.stringMatching(/shear layers/), recommended: advice.recommendation },
     })
     // The list shows what the decision now stands for: the reviewer's approach.
-    const list = (await c.engineer.get(`/api/projects/${project['KB-103']}/decisions?status=overridden&pageSize=100`)).body.decisions
+    const { rows: list } = await allPages(c.engineer, `/api/projects/${project['KB-103']}/decisions?status=overridden`, 100)
     const wmles = advice.approaches.find(a => a.id === 'wmles')!
     expect(list.find((d: { id: number }) => d.id === draft.id)).toMatchObject({ approach: 'wmles', model: 'WALE' })
     expect(list.find((d: { id: number }) => d.id === draft.id).coreHours).toBeCloseTo(wmles.coreHours, 6)
@@ -371,7 +372,8 @@ describe('review queue', () => {
     const second = await decisionIn('in_review', 'engineer')
     const own = await decisionIn('in_review', 'reviewer')
     const draft = await decisionIn('draft', 'engineer')
-    const queue = (await c.reviewer.get('/api/review/queue')).body.decisions as { id: number; submittedAt: string; status: string }[]
+    const { rows: queue, first: page } = await allPages<{ id: number; submittedAt: string; status: string }>(c.reviewer, '/api/review/queue', 2)
+    expect(page).toMatchObject({ total: queue.length, totalIsEstimate: false })
     const ids = queue.map(d => d.id)
     expect(ids).toContain(first.id)
     expect(ids.indexOf(first.id)).toBeLessThan(ids.indexOf(second.id))
@@ -380,10 +382,10 @@ describe('review queue', () => {
     expect(queue.every(d => d.status === 'in_review')).toBe(true)
     const times = queue.map(d => Date.parse(d.submittedAt))
     expect(times).toEqual([...times].sort((a, b) => a - b))
-    expect(queue.find(d => d.id === first.id)).toMatchObject({ author: { name: 'Ada Ferreira' }, budgetCoreHours: 5000 })
+    expect(queue.find(d => d.id === first.id)).toMatchObject({ author: { name: 'Ada Ferreira' }, budgetCoreHours: 5000, projectCode: expect.any(String) })
 
     // reviewer2 is not a member of the engineer-authored project, but reviews the reviewer's one.
-    const other = ((await c.reviewer2.get('/api/review/queue')).body.decisions as { id: number }[]).map(d => d.id)
+    const other = (await allPages<{ id: number }>(c.reviewer2, '/api/review/queue', 100)).rows.map(d => d.id)
     expect(other).toContain(own.id)
     expect(other).not.toContain(first.id)
   })

@@ -9,7 +9,7 @@ test('a member comments on a closed decision; the comment joins the verified his
   await signInAs(page, 'engineer')
   const projects = (await (await page.request.get('/api/projects')).json()).projects as { id: number; code: string }[]
   const kb101 = projects.find(p => p.code === 'KB-101')!
-  const list = (await (await page.request.get(`/api/projects/${kb101.id}/decisions?pageSize=100`)).json()).decisions as { id: number; title: string; version: number }[]
+  const list = (await (await page.request.get(`/api/projects/${kb101.id}/decisions?limit=100`)).json()).items as { id: number; title: string; version: number }[]
   const seeded = list.find(d => d.title === SEEDED_TITLE)!
 
   await gotoHydrated(page, `/decisions/${seeded.id}`)

@@ -7,7 +7,7 @@ test('an auditor downloads the PDF record from the decision page', async ({ page
   await signInAs(page, 'auditor')
   const projects = (await (await page.request.get('/api/projects')).json()).projects as { id: number; code: string }[]
   const kb101 = projects.find(p => p.code === 'KB-101')!
-  const list = (await (await page.request.get(`/api/projects/${kb101.id}/decisions?status=approved`)).json()).decisions as { id: number; version: number }[]
+  const list = (await (await page.request.get(`/api/projects/${kb101.id}/decisions?status=approved`)).json()).items as { id: number; version: number }[]
   const decision = list[0]!
 
   await gotoHydrated(page, `/decisions/${decision.id}`)

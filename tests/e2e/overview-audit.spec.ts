@@ -2,10 +2,11 @@ import { readFile } from 'node:fs/promises'
 import { expect, test } from '@playwright/test'
 import { gotoHydrated, keepScreenshot, signInAs } from '../support/e2e'
 
-const CSV_HEADER = 'decision id,project,title,status,author,revisions,events,chain valid,chain broken at event,last hash,engine version,ruleset version,'
+const CSV_HEADER = 'project,decision,title,status,approach,model,wall treatment,engine recommended,author,reviewer,override reason,'
+  + 'created,submitted,reviewed,last change,ruleset version,engine version,revisions,events,chain valid,chain broken at event,last hash,'
   + 'wall checks,latest wall check in band,latest wall check verdict,latest wall check review,latest wall check sha256,'
   + 'grid studies,latest fine-grid GCI,CPU runs,actual core-hours,estimated core-hours of the runs,retracted records,'
-  + 'approach,unit system,estimated core-hours of the decision,core-hour budget'
+  + 'unit system,estimated core-hours of the decision,core-hour budget'
 
 test('the team lead reads the overview: figures, the method chart, the project table and a project filter', async ({ page }) => {
   await signInAs(page, 'lead')
@@ -69,6 +70,17 @@ test('QA opens the audit, verifies the chains on the page, follows a decision an
   const lines = csv.trimEnd().split('\r\n')
   expect(lines[0]).toBe(CSV_HEADER)
   expect(lines.length - 1).toBeGreaterThanOrEqual(count)
+
+  // The search narrows the list to the decisions whose number, title or author match.
+  const number = (await rows.nth(1).getAttribute('data-testid'))!.replace('audit-row-', '')
+  await page.getByTestId('audit-search').fill(`#${number}`)
+  await expect(page.getByTestId(`audit-row-${number}`)).toBeVisible()
+  await expect(page.getByTestId('page-position')).toContainText(/of \d+ decisions/)
+  await page.getByTestId('audit-search').fill('Lindqvist')
+  await expect(rows.first()).toContainText('Tomas Lindqvist')
+  for (const text of await rows.locator('td:nth-child(4)').allTextContents()) expect(text.trim()).toBe('Tomas Lindqvist')
+  await page.getByTestId('audit-search').fill('')
+  await expect(rows).toHaveCount(count)
 
   // Each row links to its decision page.
   const first = rows.first().getByRole('link')

@@ -1,15 +1,14 @@
 import { auditFilterSchema } from '#shared/schemas/audit'
 
-// The whole audit list (same filters, every row) as a CSV download.
+// The whole audit list (same filters and search, every row) as a CSV download, streamed.
 export default defineEventHandler(async (event) => {
   const filter = await getValidatedQuery(event, zodValidator(auditFilterSchema))
   await requireRole(event, 'auditor', 'lead')
   if (filter.projectId) await requireProjectRead(event, filter.projectId)
-  const csv = await auditCsv(filter)
   setResponseHeaders(event, {
     'content-type': 'text/csv; charset=utf-8',
     'content-disposition': `attachment; filename="${auditCsvFilename()}"`,
     'cache-control': 'no-store',
   })
-  return csv
+  return sendStream(event, streamAuditCsv(event, filter))
 })

@@ -1,4 +1,8 @@
+import { reviewQueueQuerySchema } from '#shared/schemas/review'
+
+// The reviewer's queue, a page at a time: ?cursor=&limit= -> { items, nextCursor, total, totalIsEstimate }.
 export default defineEventHandler(async (event) => {
+  const query = await getValidatedQuery(event, zodValidator(reviewQueueQuerySchema))
   const user = await requireRole(event, 'reviewer')
-  return { decisions: await reviewQueueFor(user) }
+  return reviewQueueFor(user, query)
 })

@@ -4,7 +4,7 @@ import { and, eq } from 'drizzle-orm'
 import type { Role } from '#shared/utils/roles'
 import { READS_ALL_PROJECTS } from '#shared/utils/roles'
 import { decisionReadRefusal, decisionRefusal, type DecisionAction } from '../decisions/policy'
-import { findDecision } from '../decisions/queries'
+import { findDecisionForMember, readDecisionForReader } from '../decisions/queries'
 import { requireProject } from '../projects/projects'
 import { requireUser } from './session'
 import { tables, useDb } from '../db'
@@ -63,10 +63,22 @@ export async function requireProjectDecisions(event: H3Event, projectId: number)
  */
 export async function requireDecisionAccess(event: H3Event, decisionId: number, action: DecisionAction | 'read' = 'read') {
   const user = await requireUser(event)
-  const decision = await findDecision(decisionId)
-  if (!decision) throw notFound(`Decision ${decisionId} does not exist`)
-  const isMember = await isProjectMember(decision.projectId, user.id)
+  const found = await findDecisionForMember(decisionId, user.id)
+  if (!found) throw notFound(`Decision ${decisionId} does not exist`)
+  const { decision, isMember } = found
   const refusal = action === 'read' ? decisionReadRefusal(user, isMember) : decisionRefusal(user, decision, isMember, action)
   if (refusal) throw createError(refusal)
   return { user, decision, isMember }
+}
+
+/**
+ * Reading a decision's page: the guard's check from the same read that fetches the decision, its
+ * current revision, author and project, so the page costs this query and its history's.
+ */
+export async function requireDecisionRead(event: H3Event, decisionId: number) {
+  const user = await requireUser(event)
+  const found = await readDecisionForReader(decisionId, user.id)
+  const refusal = decisionReadRefusal(user, found.isMember)
+  if (refusal) throw createError(refusal)
+  return { user, found }
 }

@@ -1,7 +1,6 @@
-// Reading the decision record: one decision, its revisions and events, lists and the review queue.
-import { and, asc, count, desc, eq, inArray, ne, sql, type SQL } from 'drizzle-orm'
+// Reading the decision record: one decision, its revisions and events (lists: lists.ts).
+import { and, asc, eq, sql } from 'drizzle-orm'
 import { enteredFromCaseInput, type EnteredCase } from '#shared/schemas/case-form'
-import type { DecisionListQuery } from '#shared/schemas/decisions'
 import type { SessionUser } from '#shared/types/session'
 import type { UnitSystem } from '#shared/units'
 import type { DbOrTx } from '../../db/types'
@@ -11,6 +10,19 @@ import { tables, useDb } from '../db'
 
 export function findDecision(id: number, db: DbOrTx = useDb()) {
   return db.query.decisions.findFirst({ where: eq(tables.decisions.id, id) })
+}
+
+/**
+ * The decision row and whether `userId` is a member of its project, in one query (the guards' read).
+ * The outer column is written out: drizzle leaves a lone table's columns unqualified, which inside
+ * the subquery would name the member row's own project_id.
+ */
+export async function findDecisionForMember(id: number, userId: number) {
+  const [row] = await useDb().select({
+    decision: tables.decisions,
+    isMember: sql<boolean>`EXISTS (SELECT 1 FROM project_members m WHERE m.project_id = "decisions"."project_id" AND m.user_id = ${userId})`,
+  }).from(tables.decisions).where(eq(tables.decisions.id, id))
+  return row
 }
 
 // ---- reading
@@ -43,7 +55,15 @@ export async function readDecision(id: number, db: DbOrTx = useDb()) {
     .innerJoin(tables.users, eq(tables.users.id, decisions.authorId))
     .where(eq(decisions.id, id))
   if (!row) throw notFound(`Decision ${id} does not exist`)
-  const { decision: d, revision: r } = row
+  return decisionDto(row)
+}
+
+function decisionDto({ decision: d, revision: r, author, changesRequestedBy }: {
+  decision: typeof decisions.$inferSelect
+  revision: typeof revisions.$inferSelect
+  author: { id: number; name: string; email: string }
+  changesRequestedBy: string | null
+}) {
   return {
     id: d.id,
     projectId: d.projectId,
@@ -57,8 +77,8 @@ export async function readDecision(id: number, db: DbOrTx = useDb()) {
     requested: r.requested ?? null,
     advice: r.advice,
     notes: r.notes,
-    author: row.author,
-    changesRequestedBy: row.changesRequestedBy,
+    author,
+    changesRequestedBy,
     override: d.override ?? null,
     supersedesId: d.supersedesId,
     supersededById: d.supersededById,
@@ -67,72 +87,6 @@ export async function readDecision(id: number, db: DbOrTx = useDb()) {
   }
 }
 export type DecisionDto = Awaited<ReturnType<typeof readDecision>>
-
-// The approach a decision stands for: the reviewer's when overridden, else the engineer's own
-// choice when they requested one, else the engine's; its model (the engine's for that approach
-// unless the reviewer named one) and its core-hours (the recomputed cost of an override or a
-// requested choice, else the engine's for that approach). Shared with the overview and the audit.
-export const chosenApproach = sql<string>`coalesce(${decisions.override}->>'approach', ${revisions.requested}->'figures'->>'approach', ${revisions.advice}->'recommendation'->>'approach')`
-const engineEntryOf = (field: string) => sql`(SELECT a->>${field} FROM jsonb_array_elements(${revisions.advice}->'approaches') a WHERE a->>'id' = ${chosenApproach} LIMIT 1)`
-export const chosenModel = sql<string>`coalesce(${decisions.override}->>'model', ${engineEntryOf('model')}, ${revisions.advice}->'recommendation'->>'model')`
-export const chosenCoreHours = sql<number | null>`(CASE
-  WHEN ${decisions.override} IS NOT NULL THEN coalesce((${decisions.override}->'cost'->>'coreHours')::float8, ${engineEntryOf('coreHours')}::float8)
-  WHEN ${revisions.requested} IS NOT NULL THEN (${revisions.requested}->'figures'->'cost'->>'coreHours')::float8
-  ELSE ${engineEntryOf('coreHours')}::float8 END)`
-export const budgetCoreHours = sql<number>`(${revisions.caseInput}->'budget'->>'coreHours')::float8`
-
-export function summaryQuery<Extra extends Record<string, SQL.Aliased | SQL> = Record<never, never>>(extra: Extra = {} as Extra) {
-  return useDb().select({
-    ...extra,
-    id: decisions.id,
-    projectId: decisions.projectId,
-    title: decisions.title,
-    status: decisions.status,
-    version: decisions.version,
-    revision: decisions.currentRevision,
-    authorId: tables.users.id,
-    authorName: tables.users.name,
-    approach: chosenApproach,
-    model: chosenModel,
-    reynolds: sql<number>`(${revisions.advice}->>'reynolds')::float8`.mapWith(Number),
-    coreHours: chosenCoreHours.mapWith(Number),
-    budgetCoreHours: budgetCoreHours.mapWith(Number),
-    unitSystem: decisions.unitSystem,
-    changesRequestedBy,
-    updatedAt: decisions.updatedAt,
-    createdAt: decisions.createdAt,
-  }).from(decisions)
-    .innerJoin(revisions, currentRevisionJoin)
-    .innerJoin(tables.users, eq(tables.users.id, decisions.authorId))
-}
-
-export function toSummary<T extends { authorId: number; authorName: string }>({ authorId, authorName, ...rest }: T) {
-  return { ...rest, author: { id: authorId, name: authorName } }
-}
-
-export async function listProjectDecisions(projectId: number, query: DecisionListQuery) {
-  const where = and(eq(decisions.projectId, projectId), query.status ? eq(decisions.status, query.status) : undefined)
-  const [rows, [totals]] = await Promise.all([
-    summaryQuery().where(where).orderBy(desc(decisions.updatedAt), desc(decisions.id))
-      .limit(query.pageSize).offset((query.page - 1) * query.pageSize),
-    useDb().select({ total: count() }).from(decisions).where(where),
-  ])
-  return { decisions: rows.map(toSummary), page: query.page, pageSize: query.pageSize, total: totals?.total ?? 0 }
-}
-
-/** Decisions waiting for this reviewer: in review, in their projects, not their own; oldest submission first. */
-export async function reviewQueueFor(user: SessionUser) {
-  const submittedAt = sql<Date>`(SELECT max(e.created_at) FROM decision_events e WHERE e.decision_id = ${decisions.id} AND e.type = 'submitted')`
-    .mapWith(tables.decisionEvents.createdAt)
-  const mine = useDb().select({ id: tables.projectMembers.projectId }).from(tables.projectMembers)
-    .where(eq(tables.projectMembers.userId, user.id))
-  const rows = await summaryQuery({ submittedAt }).where(and(
-    eq(decisions.status, 'in_review'),
-    inArray(decisions.projectId, mine),
-    ne(decisions.authorId, user.id),
-  )).orderBy(asc(submittedAt), asc(decisions.id))
-  return rows.map(toSummary)
-}
 
 export async function listEvents(decisionId: number, db: DbOrTx = useDb()) {
   const e = tables.decisionEvents
@@ -184,20 +138,72 @@ export async function projectHeading(projectId: number) {
   return project!
 }
 
-/** Everything the decision page shows, with what the signed-in user may do. */
-export async function decisionDetail(decisionId: number, user: SessionUser, isMember: boolean) {
-  const decision = await readDecision(decisionId)
-  const [project, revisionList, events] = await Promise.all([
-    projectHeading(decision.projectId),
-    listRevisions(decisionId),
-    listEvents(decisionId),
-  ])
+/**
+ * What the decision page shows first, in one query: the decision, its current revision, author and
+ * project, and whether `userId` is a member of the project (for the guard). 404 when it does not exist.
+ */
+export async function readDecisionForReader(id: number, userId: number, db: DbOrTx = useDb()) {
+  const [row] = await db.select({
+    decision: decisions,
+    revision: revisions,
+    author: { id: tables.users.id, name: tables.users.name, email: tables.users.email },
+    changesRequestedBy,
+    project: { id: tables.projects.id, code: tables.projects.code, name: tables.projects.name },
+    isMember: sql<boolean>`EXISTS (SELECT 1 FROM project_members m WHERE m.project_id = "decisions"."project_id" AND m.user_id = ${userId})`,
+  }).from(decisions)
+    .innerJoin(revisions, currentRevisionJoin)
+    .innerJoin(tables.users, eq(tables.users.id, decisions.authorId))
+    .innerJoin(tables.projects, eq(tables.projects.id, decisions.projectId))
+    .where(eq(decisions.id, id))
+  if (!row) throw notFound(`Decision ${id} does not exist`)
+  return { decision: decisionDto(row), project: row.project, isMember: row.isMember }
+}
+
+type HistoryRow = {
+  calibrationInForce: number | null
+  events: (Omit<Awaited<ReturnType<typeof listEvents>>[number], 'createdAt'> & { createdAt: string })[]
+  revisions: (Omit<Awaited<ReturnType<typeof listRevisions>>[number], 'createdAt'> & { createdAt: string })[]
+}
+
+/**
+ * A decision's events and revisions (with who made them), in one query; with the version of the
+ * team calibration in force, so the page's calibrated estimate needs no query of its own.
+ */
+export async function readHistory(decisionId: number, db: DbOrTx = useDb()) {
+  const { rows } = await db.execute<HistoryRow>(sql`SELECT
+    (SELECT max(version) FROM calibration_adoptions) AS "calibrationInForce",
+    (SELECT coalesce(json_agg(json_build_object(
+        'id', e.id, 'seq', e.seq, 'type', e.type, 'actorRole', e.actor_role, 'payload', e.payload,
+        'createdAt', e.created_at, 'hash', e.hash, 'prevHash', e.prev_hash, 'actor', json_build_object('id', u.id, 'name', u.name)
+      ) ORDER BY e.seq), '[]'::json)
+      FROM decision_events e JOIN users u ON u.id = e.actor_id WHERE e.decision_id = ${decisionId}) AS events,
+    (SELECT coalesce(json_agg(json_build_object(
+        'revision', r.revision, 'createdAt', r.created_at, 'inputHash', r.input_hash, 'notes', r.notes,
+        'createdBy', json_build_object('id', u.id, 'name', u.name)
+      ) ORDER BY r.revision), '[]'::json)
+      FROM decision_revisions r JOIN users u ON u.id = r.created_by WHERE r.decision_id = ${decisionId}) AS revisions`)
+  const history = rows[0]!
   return {
-    decision,
-    project: project!,
-    revisions: revisionList,
-    events,
-    permissions: decisionPermissions(user, { authorId: decision.author.id, status: decision.status }, isMember),
+    calibrationInForce: history.calibrationInForce,
+    events: history.events.map(e => ({ ...e, id: Number(e.id), createdAt: new Date(e.createdAt) })),
+    revisions: history.revisions.map(r => ({ ...r, createdAt: new Date(r.createdAt) })),
   }
 }
 
+/**
+ * Everything the decision page shows, with what the signed-in user may do: the guard's read plus
+ * one query; and the calibration version in force, for the calibrated estimate beside the advice.
+ */
+export async function decisionDetail(found: Awaited<ReturnType<typeof readDecisionForReader>>, user: SessionUser) {
+  const { events, revisions: revisionList, calibrationInForce } = await readHistory(found.decision.id)
+  return {
+    calibrationInForce,
+    detail: {
+      decision: found.decision,
+      project: found.project,
+      revisions: revisionList,
+      events,
+      permissions: decisionPermissions(user, { authorId: found.decision.author.id, status: found.decision.status }, found.isMember),
+    },
+  }
+}

@@ -17,6 +17,7 @@ import { appendChainedEvent, canonicalHash, type DecisionEventType } from '../..
 import { insertRevision } from '../../db/ledger-records'
 import * as schema from '../../db/schema'
 import type { DbOrTx } from '../../db/types'
+import { writeDecisionSummary } from './summary'
 
 export type RecordActor = { id: number; role: Role }
 export type DecisionRow = typeof schema.decisions.$inferSelect
@@ -112,7 +113,7 @@ export function adviceRecord(submission: CaseSubmission) {
 // Round-trips through JSON so the ledger's hash covers exactly what jsonb will give back.
 const asStored = <T>(value: T): T => (value === undefined ? value : JSON.parse(JSON.stringify(value)))
 
-function revisionValues(decisionId: number, revision: number, record: ReturnType<typeof adviceRecord>, notes: string, actor: RecordActor, at: Date) {
+export function revisionValues(decisionId: number, revision: number, record: ReturnType<typeof adviceRecord>, notes: string, actor: RecordActor, at: Date) {
   return {
     decisionId,
     revision,
@@ -131,7 +132,7 @@ function revisionValues(decisionId: number, revision: number, record: ReturnType
   }
 }
 
-function revisionPayload(revision: number, record: ReturnType<typeof adviceRecord>, title: string) {
+export function revisionPayload(revision: number, record: ReturnType<typeof adviceRecord>, title: string) {
   const { approach, model, wallTreatment } = record.advice.recommendation
   const requested = record.requested
     ? { requested: { approach: record.requested.figures.approach, wallTreatment: record.requested.figures.wallTreatment, reason: record.requested.reason } }
@@ -170,6 +171,7 @@ export async function insertDecision(tx: DbOrTx, input: CaseSubmission & {
     payload: { ...revisionPayload(1, record, input.title), ...(input.supersedesId ? { supersedes: input.supersedesId } : {}) },
     at,
   })
+  await writeDecisionSummary(tx, decision!.id)
   return decision!
 }
 
@@ -178,7 +180,13 @@ export async function insertDecision(tx: DbOrTx, input: CaseSubmission & {
  * only if it still has the version the client saw and one of the expected statuses; the version
  * goes up by one and the event is chained. Null when nothing matched (stale or wrong status).
  */
-export async function changeDecision(tx: DbOrTx, input: {
+export async function changeDecision(tx: DbOrTx, input: DecisionChange): Promise<DecisionRow | null> {
+  const row = await changeDecisionRow(tx, input)
+  if (row) await writeDecisionSummary(tx, row.id)
+  return row
+}
+
+type DecisionChange = {
   decisionId: number
   version: number
   from: readonly DecisionStatus[]
@@ -186,7 +194,10 @@ export async function changeDecision(tx: DbOrTx, input: {
   // The payload may depend on the changed row (e.g. the new revision number).
   event: { type: DecisionEventType; actor: RecordActor; payload?: Record<string, unknown> | ((row: DecisionRow) => Record<string, unknown>) }
   at?: Date
-}): Promise<DecisionRow | null> {
+}
+
+// The row change and its event, without the summary (a revision writes it after its new revision row).
+async function changeDecisionRow(tx: DbOrTx, input: DecisionChange): Promise<DecisionRow | null> {
   const at = input.at ?? new Date()
   const { nextRevision, ...set } = input.set
   const [row] = await tx.update(schema.decisions).set({
@@ -222,7 +233,7 @@ export async function reviseDecisionRecord(tx: DbOrTx, input: CaseSubmission & {
 }) {
   const record = adviceRecord(input)
   const at = input.at ?? new Date()
-  const row = await changeDecision(tx, {
+  const row = await changeDecisionRow(tx, {
     decisionId: input.decisionId,
     version: input.version,
     from: ['draft'],
@@ -239,6 +250,7 @@ export async function reviseDecisionRecord(tx: DbOrTx, input: CaseSubmission & {
     notes = previous?.notes ?? ''
   }
   await insertRevision(tx, revisionValues(row.id, row.currentRevision, record, notes, input.actor, at))
+  await writeDecisionSummary(tx, row.id)
   return row
 }
 

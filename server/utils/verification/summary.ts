@@ -1,5 +1,6 @@
 import { asc, inArray } from 'drizzle-orm'
 import type { GridStudyResult, WallCheckResult } from '#shared/verification'
+import type { DbOrTx } from '../../db/types'
 import { tables, useDb } from '../db'
 
 // One line of verification per decision, for the audit export: the records that stand (retracted
@@ -20,11 +21,10 @@ const empty = (): VerificationSummary => ({
   wallChecks: 0, retracted: 0, latestWallCheck: null, gridStudies: 0, latestGciFine: null, runs: 0, actualCoreHours: 0, estimatedCoreHours: null,
 })
 
-export async function verificationSummaries(decisionIds: number[]) {
+export async function verificationSummaries(decisionIds: number[], db: DbOrTx = useDb()) {
   const result = new Map<number, VerificationSummary>()
   for (const id of decisionIds) result.set(id, empty())
   if (!decisionIds.length) return result
-  const db = useDb()
   const [checks, studies, runs] = await Promise.all([
     db.select().from(tables.wallChecks).where(inArray(tables.wallChecks.decisionId, decisionIds)).orderBy(asc(tables.wallChecks.id)),
     db.select().from(tables.gridStudies).where(inArray(tables.gridStudies.decisionId, decisionIds)).orderBy(asc(tables.gridStudies.id)),

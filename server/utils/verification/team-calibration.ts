@@ -1,4 +1,4 @@
-import { desc, eq, isNull } from 'drizzle-orm'
+import { desc, eq, isNull, max } from 'drizzle-orm'
 import {
   MIN_RUNS_TO_ADOPT, calibrate, calibratedEstimates, costPerCellStep,
   type AdoptedCalibration, type CalibrationBlock, type RunFigures,
@@ -6,6 +6,8 @@ import {
 import type { ApproachId } from '#shared/rules'
 import type { SessionUser } from '#shared/types/session'
 import { recordInLedger } from '../../db/ledger-records'
+import type { DbOrTx } from '../../db/types'
+import { versionedCache } from '../cache/versioned'
 import { tables, useDb } from '../db'
 import { currentPassFraction } from './wall-checks'
 
@@ -24,12 +26,32 @@ async function standingRuns() {
     .where(isNull(r.retractedAt)).orderBy(r.id)
 }
 
-export async function adoptedCalibration(): Promise<AdoptedCalibration | null> {
+// Adoptions are appended, never changed: a version's calibration is read once per process.
+const adoptions = versionedCache<Promise<AdoptedCalibration | null>>(8)
+
+/** The version of the calibration in force (null when none was adopted): one index probe. */
+export async function calibrationVersion(db: DbOrTx = useDb()): Promise<number | null> {
+  const [row] = await db.select({ version: max(tables.calibrationAdoptions.version) }).from(tables.calibrationAdoptions)
+  return row?.version ?? null
+}
+
+async function loadAdoption(version: number): Promise<AdoptedCalibration | null> {
   const [row] = await useDb().select({ a: tables.calibrationAdoptions, by: tables.users.name })
     .from(tables.calibrationAdoptions).innerJoin(tables.users, eq(tables.users.id, tables.calibrationAdoptions.adoptedBy))
-    .orderBy(desc(tables.calibrationAdoptions.version)).limit(1)
+    .where(eq(tables.calibrationAdoptions.version, version))
   if (!row) return null
   return { version: row.a.version, adoptedAt: row.a.createdAt.toISOString(), adoptedBy: row.by, entries: row.a.entries }
+}
+
+/** The calibration in force; `version` when the caller already read it (calibrationVersion or the same subquery). */
+export async function adoptedCalibration(version?: number | null): Promise<AdoptedCalibration | null> {
+  const current = version === undefined ? await calibrationVersion() : version
+  if (current === null) return null
+  const key = String(current)
+  return adoptions.get(key, '', () => loadAdoption(current).catch((error: unknown) => {
+    adoptions.forget(key, '')
+    throw error
+  }))
 }
 
 /** The lead's calibration page: measured figures per approach and hardware, the runs, the adoptions. */
@@ -79,8 +101,8 @@ export async function adoptCalibration(note: string, user: SessionUser) {
 }
 
 /** The calibration block shown beside an advice: both estimates, and which one leads. */
-export async function calibrationFor(advice: Parameters<typeof calibratedEstimates>[0], focus?: ApproachId): Promise<CalibrationBlock> {
-  return calibratedEstimates(advice, await adoptedCalibration(), focus)
+export async function calibrationFor(advice: Parameters<typeof calibratedEstimates>[0], focus?: ApproachId, version?: number | null): Promise<CalibrationBlock> {
+  return calibratedEstimates(advice, await adoptedCalibration(version), focus)
 }
 
 export async function setPassFraction(value: number, note: string, user: SessionUser) {

@@ -11,8 +11,8 @@ const messages = (result: { success: boolean; error?: { issues: { path: (string 
 
 describe('decision payloads', () => {
   it('reads list queries from strings, with defaults', () => {
-    expect(decisionListQuerySchema.parse({})).toEqual({ page: 1, pageSize: 20 })
-    expect(decisionListQuerySchema.parse({ page: '3', pageSize: '5', status: 'approved' })).toEqual({ page: 3, pageSize: 5, status: 'approved' })
+    expect(decisionListQuerySchema.parse({})).toEqual({ limit: 20 })
+    expect(decisionListQuerySchema.parse({ limit: '5', status: 'approved', cursor: '' })).toEqual({ limit: 5, status: 'approved' })
   })
 
   it('accepts an override whose model and wall treatment belong to the approach', () => {

@@ -1,0 +1,52 @@
+// The QA audit of the decision record: every decision across projects with its history and the
+// check of its hash chain, a keyset page at a time, filtered and searched from the summaries.
+import { and, eq, ilike, or, sql, type SQL } from 'drizzle-orm'
+import type { AuditFilter, AuditListQuery } from '#shared/schemas/audit'
+import type { DbOrTx } from '../../db/types'
+import { LATEST_ACTIVITY, filteredSummaries, summaryRows, toSummary } from '../decisions/lists'
+import { afterCursor, countRows, keysetPage } from '../pagination/keyset'
+import { tables, useDb } from '../db'
+import { chainFacts } from './chains'
+
+const s = tables.decisionSummaries
+
+// Trigram indexes serve substrings of three characters or more.
+const MIN_TEXT_SEARCH = 3
+
+/** A decision number (#123 or 123), or words of the title or of the author's name. */
+async function searchCondition(q: string): Promise<SQL> {
+  const number = /^#?(\d{1,9})$/.exec(q)
+  if (q.length < MIN_TEXT_SEARCH) return number ? eq(s.decisionId, Number(number[1])) : sql`false`
+  const pattern = `%${q.replace(/[\\%_]/g, c => `\\${c}`)}%`
+  // Authors first (a short table), so the search is an index lookup per part.
+  const authors = await useDb().select({ id: tables.users.id }).from(tables.users).where(ilike(tables.users.name, pattern))
+  return or(
+    number ? eq(s.decisionId, Number(number[1])) : undefined,
+    ilike(s.title, pattern),
+    authors.length ? sql`${s.authorId} = ANY(${`{${authors.map(a => a.id).join(',')}}`}::int[])` : undefined,
+  )!
+}
+
+export async function auditWhere(filter: AuditFilter) {
+  return and(
+    filter.projectId ? eq(s.projectId, filter.projectId) : undefined,
+    filter.status ? eq(s.status, filter.status) : undefined,
+    filter.q ? await searchCondition(filter.q) : undefined,
+  )
+}
+
+/** The rows of the audit in its order (latest activity first), for a page or the export. */
+export function auditRows(where: SQL | undefined, db: DbOrTx = useDb()) {
+  return summaryRows(db).where(where).orderBy(...LATEST_ACTIVITY)
+}
+
+export async function listAuditDecisions(query: AuditListQuery) {
+  const where = await auditWhere(query)
+  const [rows, totals] = await Promise.all([
+    auditRows(and(where, afterCursor(s.updatedAt, s.decisionId, query.cursor, 'desc'))).limit(query.limit + 1),
+    countRows(useDb(), filteredSummaries(where, LATEST_ACTIVITY)),
+  ])
+  const page = keysetPage(rows, query.limit, row => ({ at: row.updatedAt, id: row.id }))
+  const facts = await chainFacts(useDb(), page.items.map(r => r.id))
+  return { ...page, items: page.items.map(row => ({ ...toSummary(row), ...facts.get(row.id)! })), ...totals }
+}
