@@ -48,7 +48,8 @@ export default defineNuxtConfig({
     databaseUrl: '',
     appUrl: 'http://127.0.0.1:3000',
     smtp: { host: '127.0.0.1', port: 1025, user: '', pass: '', from: 'Eddyledger <no-reply@eddyledger.test>', secure: false },
-    session: { maxAge: 60 * 60 * 12 },
+    // password: NUXT_SESSION_PASSWORD at run time (nuxt-auth-utils refuses to start without it in production).
+    session: { maxAge: 60 * 60 * 12, password: '' },
     // Sign-in attempts allowed per account from one address, per address, and per account from all
     // addresses together, before growing waits (delaySeconds, doubling up to the window); see
     // server/utils/auth/login-limiter.ts. trustProxy: read the client address and protocol from X-Forwarded-*.

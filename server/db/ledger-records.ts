@@ -138,6 +138,21 @@ const settingsSource: RecordSource<typeof schema.teamSettings.$inferSelect> = {
   subject: row => ({ type: 'team-settings', id: String(row.id) }),
 }
 
+// The team's ruleset history (its own chain, server/utils/rulesets/history.ts): each installation
+// and publication is also a ledger entry holding the event's chained hash, so a rewritten and
+// rehashed ruleset history no longer matches the ledger.
+const rulesetEventSource: RecordSource<typeof schema.rulesetEvents.$inferSelect> = {
+  table: 'ruleset_events',
+  noun: 'ruleset event',
+  entryType: 'ruleset-event',
+  load: (db, ids) => db.select().from(schema.rulesetEvents).where(inArray(schema.rulesetEvents.id, ids)),
+  id: row => row.id,
+  describe: row => `Ruleset event #${row.seq} (${row.type}) of ruleset version ${row.rulesetId}`,
+  hash: row => row.hash,
+  hashColumn: 'hash',
+  subject: row => ({ type: 'ruleset-version', id: String(row.rulesetId) }),
+}
+
 /** Every table whose rows the ledger holds, by name. */
 export const RECORD_SOURCES: Record<string, RecordSource> = {
   decision_events: eventSource,
@@ -151,6 +166,7 @@ export const RECORD_SOURCES: Record<string, RecordSource> = {
     (db, ids) => db.select().from(schema.runRecords).where(inArray(schema.runRecords.id, ids))),
   calibration_adoptions: calibrationSource,
   team_settings: settingsSource,
+  ruleset_events: rulesetEventSource,
 }
 
 /** Appends a newly written row of one of RECORD_SOURCES' tables to the ledger, in the caller's transaction. */

@@ -5,6 +5,7 @@ import canonicalize from 'canonicalize'
 import { asc, desc, sql } from 'drizzle-orm'
 import type { Role } from '../../../shared/utils/roles'
 import { GENESIS_HASH, sha256Hex } from '../../db/event-chain'
+import { recordInLedger } from '../../db/ledger-records'
 import * as schema from '../../db/schema'
 import type { DbOrTx } from '../../db/types'
 
@@ -69,6 +70,7 @@ export async function appendRulesetEvent(tx: DbOrTx, input: {
     prevHash,
     hash: rulesetEventHash(prevHash, fields),
   }).returning()
+  await recordInLedger(tx, 'ruleset_events', event!)
   return event!
 }
 
