@@ -225,6 +225,20 @@ export const decisionRuleTallies = pgTable('decision_rule_tallies', {
   index('decision_rule_tallies_project_idx').on(t.projectId, t.month),
 ])
 
+// Decisions per ruleset version, per project, month and status, kept the same way (the overview's
+// "decisions by ruleset version").
+export const decisionRulesetTallies = pgTable('decision_ruleset_tallies', {
+  month: date('month', { mode: 'string' }).notNull(),
+  projectId: integer('project_id').notNull().references(() => projects.id),
+  status: decisionStatusEnum('status').notNull(),
+  rulesetId: text('ruleset_id').notNull(),
+  rulesetVersion: text('ruleset_version').notNull(),
+  decisions: integer('decisions').notNull(),
+}, t => [
+  primaryKey({ columns: [t.month, t.projectId, t.status, t.rulesetId, t.rulesetVersion] }),
+  index('decision_ruleset_tallies_project_idx').on(t.projectId, t.month),
+])
+
 // Outgoing mail is written in the same transaction as the action, then delivered after commit and
 // retried on failure, so a failed send never loses the action.
 export const mailOutbox = pgTable('mail_outbox', {

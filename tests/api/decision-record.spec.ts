@@ -108,7 +108,7 @@ describe("the engineer's own choice", () => {
     }
     expect(d.requested).toEqual({ ...requested, figures: expect.objectContaining({ approach: 'urans', wallTreatment: 'wall-function', cost: JSON.parse(JSON.stringify(cost)) }) })
     expect(d.requested.figures.wall.wallTreatment).toBe('wall-function')
-    const row = (await engineer.get(`/api/projects/${project['KB-102']}/decisions?pageSize=100`)).body.decisions.find((x: { id: number }) => x.id === d.id)
+    const row = (await engineer.get(`/api/projects/${project['KB-102']}/decisions?limit=100`)).body.items.find((x: { id: number }) => x.id === d.id)
     expect(row).toMatchObject({ approach: 'urans', model: d.advice.approaches.find((a: { id: string }) => a.id === 'urans').model })
     expect(row.coreHours).toBeCloseTo(cost.coreHours, 9)
   })

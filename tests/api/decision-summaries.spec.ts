@@ -4,7 +4,7 @@
 import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { advise } from '#shared/rules'
+import { advise, caseInputSchema, costFor } from '#shared/rules'
 import * as schema from '../../server/db/schema'
 import { summaryDrift, writeDecisionSummary } from '../../server/utils/decisions/summary'
 import { type ApiClient, signIn } from '../support/api-client'
@@ -66,7 +66,8 @@ describe('decision summaries', () => {
       version: submitted.version, approach, model: 'k-omega SST', wallTreatment: 'wall-function',
       comment: 'The client needs loads only; the unsteady wake is not reported.',
     })
-    const chosen = wake.approaches.find(a => a.id === approach)!
+    // An override is costed for its own approach and wall treatment (costFor), as the record does.
+    const chosen = costFor(caseInputSchema.parse(CONDENSER_CASE), approach, 'wall-function')
     await expectSummary(draft.id, {
       status: 'overridden', approach, model: 'k-omega SST', wall_treatment: 'wall-function', engine_approach: wake.recommendation.approach,
       overridden: true, override_reason: 'The client needs loads only; the unsteady wake is not reported.',

@@ -34,7 +34,9 @@ async function approvedDecision() {
 }
 
 async function deleteDecision(id: number, withLedger: boolean) {
-  await withoutTriggers(owner, ['decision_events', 'decision_revisions', 'decisions', 'ledger_entries'], async () => {
+  await withoutTriggers(owner, ['decision_summaries', 'decision_events', 'decision_revisions', 'decisions', 'ledger_entries'], async () => {
+    // Its summary row must go first (it references the decision); the tallies follow it by trigger.
+    await owner.query('DELETE FROM decision_summaries WHERE decision_id = $1', [id])
     await owner.query('DELETE FROM decision_events WHERE decision_id = $1', [id])
     await owner.query('DELETE FROM decision_revisions WHERE decision_id = $1', [id])
     await owner.query('DELETE FROM decisions WHERE id = $1', [id])
@@ -129,7 +131,7 @@ describe('tampering as the table owner, triggers off', () => {
 
   it('a whole decision deleted with its events and revisions: the totals drop by one, and the gap is reported', async () => {
     const id = await approvedDecision()
-    const total = async () => (await c.auditor.get('/api/audit/decisions?pageSize=1')).body.total as number
+    const total = async () => (await c.auditor.get('/api/audit/decisions?limit=1')).body.total as number
     const before = await total()
     await deleteDecision(id, false)
     expect(await total()).toBe(before - 1)
@@ -215,6 +217,14 @@ describe('tampering as the table owner, triggers off', () => {
     const altered = expect.objectContaining({ kind: 'altered', detail: expect.stringMatching(new RegExp(`^Run record ${record.id} of decision ${id} was changed after ledger entry #\\d+ recorded it$`)) })
     expect(about(await verify(), id)).toEqual([altered])
     expect((await c.auditor.get(`/api/decisions/${id}/verify`)).body).toMatchObject({ valid: false, brokenAt: null, problems: [altered] })
+  })
+
+  it('a decision\'s summary row rewritten (the lists and overview read it): the state disagrees, naming the column', async () => {
+    const id = await approvedDecision()
+    await withoutTriggers(owner, ['decision_summaries'], () => owner.query(`UPDATE decision_summaries SET approach = 'dns' WHERE decision_id = $1`, [id]))
+    expect(about(await verify(), id)).toEqual([expect.objectContaining({
+      kind: 'state', detail: `Decision ${id}: its summary row disagrees with its record (approach)`,
+    })])
   })
 
   it('an entry pointed at another previous hash (its own hash recomputed): a broken link', async () => {

@@ -271,7 +271,7 @@ describe('transitions', () => {
     // The event keeps the recomputed core-hours; lists and the overview count them.
     const events = (await c.auditor.get(`/api/decisions/${d.id}/events`)).body.events
     expect(events.at(-1).payload.coreHours).toBeCloseTo(expected.coreHours, 9)
-    const list = (await c.auditor.get(`/api/projects/${engineerProject}/decisions?status=overridden&pageSize=100`)).body.decisions
+    const list = (await c.auditor.get(`/api/projects/${engineerProject}/decisions?status=overridden&limit=100`)).body.items
     expect(list.find((x: { id: number }) => x.id === d.id).coreHours).toBeCloseTo(expected.coreHours, 9)
   })
 

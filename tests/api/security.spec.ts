@@ -215,18 +215,23 @@ describe('input that used to end in a 500', () => {
     }
   })
 
-  it('answers page=1e300 and other out-of-range pages with 400', async () => {
+  it('answers page=1e300, limit=1e300, a forged cursor and other out-of-range pages with 400', async () => {
     const auditor = await signIn('auditor')
     for (const [client, path] of [
       [admin, '/api/admin/mail?page=1e300'],
-      [auditor, '/api/audit/decisions?page=1e300'],
-      [auditor, '/api/audit/decisions?page=2147483648'],
-      [engineer, `/api/projects/${projectId}/decisions?page=1e300`],
+      [auditor, '/api/audit/decisions?limit=1e300'],
+      [auditor, '/api/audit/decisions?limit=2147483648'],
+      [engineer, `/api/projects/${projectId}/decisions?limit=1e300`],
       [auditor, '/api/overview?projectId=1e21'],
     ] as const) {
       const res = await client.get(path)
       expect(res.status, path).toBe(400)
       expect(res.body.message, path).toMatch(/at most|whole/i)
+    }
+    for (const path of ['/api/audit/decisions?cursor=not-a-cursor', `/api/audit/decisions?cursor=${'A'.repeat(5000)}`]) {
+      const res = await auditor.get(path)
+      expect(res.status, path).toBe(400)
+      expect(res.body.message, path).toMatch(/cursor is not one this server gave/i)
     }
   })
 

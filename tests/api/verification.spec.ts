@@ -8,6 +8,7 @@ import { join } from 'node:path'
 import { gzipSync } from 'node:zlib'
 import { ListObjectsV2Command, GetObjectCommand, S3Client } from '@aws-sdk/client-s3'
 import pg from 'pg'
+import Papa from 'papaparse'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { signIn, type ApiClient } from '../support/api-client'
 import { DUCT_CASE, act, createDraft } from '../support/decisions'
@@ -354,9 +355,9 @@ describe('the record and the export', () => {
 
   it('adds the verification columns to the audit CSV', async () => {
     const csv = (await c.auditor.get('/api/audit/decisions.csv')).body as string
-    const lines = csv.trim().split(/\r\n/).map(l => l.split(','))
+    const lines = Papa.parse<string[]>(csv.replace(/^\uFEFF/, '').trim()).data
     const header = lines[0]!
-    const row = lines.find(l => Number(l[0]) === decisionId)!
+    const row = lines.find(l => Number(l[header.indexOf('decision')]) === decisionId)!
     const col = (name: string) => row[header.indexOf(name)]
     expect(Number(col('wall checks'))).toBeGreaterThanOrEqual(5)
     expect(col('latest wall check verdict')).toMatch(/^(pass|fail)$/)

@@ -78,8 +78,8 @@ let demo: { hull: DemoDecision; wake: DemoDecision; duct: DemoDecision; intake: 
 /** The demo's decisions and projects, read once as the auditor (who reads every one). */
 async function demoIds(page: Page) {
   if (demo) return demo
-  const list = await (await page.request.get('/api/audit/decisions?pageSize=50')).json() as { decisions: DemoDecision[] }
-  const byTitle = (part: string) => list.decisions.find(d => d.title.includes(part))!
+  const list = await (await page.request.get('/api/audit/decisions?limit=50')).json() as { items: DemoDecision[] }
+  const byTitle = (part: string) => list.items.find(d => d.title.includes(part))!
   const projects = await (await page.request.get('/api/projects')).json() as { projects: { id: number; code: string }[] }
   demo = {
     hull: byTitle('Ferry hull calm-water'),

@@ -7,6 +7,16 @@ CREATE TABLE "decision_rule_tallies" (
 	CONSTRAINT "decision_rule_tallies_month_project_id_status_rule_pk" PRIMARY KEY("month","project_id","status","rule")
 );
 --> statement-breakpoint
+CREATE TABLE "decision_ruleset_tallies" (
+	"month" date NOT NULL,
+	"project_id" integer NOT NULL,
+	"status" "decision_status" NOT NULL,
+	"ruleset_id" text NOT NULL,
+	"ruleset_version" text NOT NULL,
+	"decisions" integer NOT NULL,
+	CONSTRAINT "decision_ruleset_tallies_month_project_id_status_ruleset_id_ruleset_version_pk" PRIMARY KEY("month","project_id","status","ruleset_id","ruleset_version")
+);
+--> statement-breakpoint
 CREATE TABLE "decision_summaries" (
 	"decision_id" integer PRIMARY KEY NOT NULL,
 	"project_id" integer NOT NULL,
@@ -53,6 +63,7 @@ CREATE TABLE "decision_tallies" (
 );
 --> statement-breakpoint
 ALTER TABLE "decision_rule_tallies" ADD CONSTRAINT "decision_rule_tallies_project_id_projects_id_fk" FOREIGN KEY ("project_id") REFERENCES "public"."projects"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "decision_ruleset_tallies" ADD CONSTRAINT "decision_ruleset_tallies_project_id_projects_id_fk" FOREIGN KEY ("project_id") REFERENCES "public"."projects"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision_summaries" ADD CONSTRAINT "decision_summaries_decision_id_decisions_id_fk" FOREIGN KEY ("decision_id") REFERENCES "public"."decisions"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision_summaries" ADD CONSTRAINT "decision_summaries_project_id_projects_id_fk" FOREIGN KEY ("project_id") REFERENCES "public"."projects"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision_summaries" ADD CONSTRAINT "decision_summaries_author_id_users_id_fk" FOREIGN KEY ("author_id") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
@@ -60,6 +71,7 @@ ALTER TABLE "decision_summaries" ADD CONSTRAINT "decision_summaries_reviewer_id_
 ALTER TABLE "decision_summaries" ADD CONSTRAINT "decision_summaries_changes_requested_by_users_id_fk" FOREIGN KEY ("changes_requested_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision_tallies" ADD CONSTRAINT "decision_tallies_project_id_projects_id_fk" FOREIGN KEY ("project_id") REFERENCES "public"."projects"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "decision_rule_tallies_project_idx" ON "decision_rule_tallies" USING btree ("project_id","month");--> statement-breakpoint
+CREATE INDEX "decision_ruleset_tallies_project_idx" ON "decision_ruleset_tallies" USING btree ("project_id","month");--> statement-breakpoint
 CREATE INDEX "decision_summaries_updated_idx" ON "decision_summaries" USING btree ("updated_at","decision_id");--> statement-breakpoint
 CREATE INDEX "decision_summaries_project_updated_idx" ON "decision_summaries" USING btree ("project_id","updated_at","decision_id");--> statement-breakpoint
 CREATE INDEX "decision_summaries_status_updated_idx" ON "decision_summaries" USING btree ("status","updated_at","decision_id");--> statement-breakpoint

@@ -126,6 +126,20 @@ BEGIN
   HAVING sum(n) <> 0
   ORDER BY month, project_id, status, rule
   ON CONFLICT (month, project_id, status, rule) DO UPDATE SET decisions = t.decisions + excluded.decisions;
+
+  INSERT INTO decision_ruleset_tallies AS t (month, project_id, status, ruleset_id, ruleset_version, decisions)
+  SELECT month, project_id, status, ruleset_id, ruleset_version, sum(n)
+  FROM (
+    SELECT date_trunc('month', NEW.created_at AT TIME ZONE 'UTC')::date AS month, NEW.project_id AS project_id, NEW.status AS status,
+      NEW.ruleset_id AS ruleset_id, NEW.ruleset_version AS ruleset_version, 1 AS n WHERE TG_OP IN ('INSERT', 'UPDATE')
+    UNION ALL
+    SELECT date_trunc('month', OLD.created_at AT TIME ZONE 'UTC')::date, OLD.project_id, OLD.status, OLD.ruleset_id, OLD.ruleset_version, -1
+    WHERE TG_OP = 'UPDATE'
+  ) delta
+  GROUP BY month, project_id, status, ruleset_id, ruleset_version
+  HAVING sum(n) <> 0
+  ORDER BY month, project_id, status, ruleset_id, ruleset_version
+  ON CONFLICT (month, project_id, status, ruleset_id, ruleset_version) DO UPDATE SET decisions = t.decisions + excluded.decisions;
   RETURN NULL;
 END;
 $$;
@@ -156,6 +170,12 @@ CREATE TRIGGER decision_rule_tallies_no_delete BEFORE DELETE ON decision_rule_ta
   FOR EACH ROW EXECUTE FUNCTION refuse_summary_removal();
 --> statement-breakpoint
 CREATE TRIGGER decision_rule_tallies_no_truncate BEFORE TRUNCATE ON decision_rule_tallies
+  FOR EACH STATEMENT EXECUTE FUNCTION refuse_summary_removal();
+--> statement-breakpoint
+CREATE TRIGGER decision_ruleset_tallies_no_delete BEFORE DELETE ON decision_ruleset_tallies
+  FOR EACH ROW EXECUTE FUNCTION refuse_summary_removal();
+--> statement-breakpoint
+CREATE TRIGGER decision_ruleset_tallies_no_truncate BEFORE TRUNCATE ON decision_ruleset_tallies
   FOR EACH STATEMENT EXECUTE FUNCTION refuse_summary_removal();
 --> statement-breakpoint
 -- Search by title: trigram index (pg_trgm ships with PostgreSQL and is trusted, so the database

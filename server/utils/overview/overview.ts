@@ -7,7 +7,7 @@ import { RULESET } from '#shared/rules'
 import { DECISION_STATUSES, type DecisionStatus } from '#shared/utils/decision-status'
 import type { OverviewQuery } from '#shared/schemas/overview'
 import { tables, useDb } from '../db'
-import { decisionsByRulesetVersion } from '../rulesets/usage'
+import { sortByRulesetVersion } from '../rulesets/usage'
 
 // How many override pairs and disagreed rules the overview lists.
 const TOP = 10
@@ -93,11 +93,22 @@ async function disagreedRules(query: OverviewQuery) {
 }
 
 
-/** The summaries of decisions created in the range (whole UTC days) and project, by their creation index. */
-function summariesInRange(query: OverviewQuery) {
-  const from = query.from ? utcDay(query.from) : undefined
-  const to = query.to ? new Date(utcDay(query.to).getTime() + 24 * 3600 * 1000) : undefined
-  return sql`true${from ? sql` AND created_at >= ${from.toISOString()}::timestamptz` : sql``}${to ? sql` AND created_at < ${to.toISOString()}::timestamptz` : sql``}${projectIs(query.projectId, 'project_id')}`
+/** Decisions per ruleset version in the range: whole months from their tally, the days outside them from the summaries. */
+async function rulesetVersions(query: OverviewQuery) {
+  const { months, days } = overviewRange(query)
+  const parts: SQL[] = []
+  if (months) {
+    parts.push(sql`SELECT ruleset_id, ruleset_version, status, decisions FROM decision_ruleset_tallies WHERE ${monthsWhere(months, query.projectId)}`)
+  }
+  if (days.length) {
+    parts.push(sql`SELECT ruleset_id, ruleset_version, status, 1 FROM decision_summaries WHERE ${daysWhere(days, query.projectId)}`)
+  }
+  const { rows } = await useDb().execute<{ key: string; version: string; count: number; standing: number }>(sql`
+    SELECT ruleset_id AS key, ruleset_version AS version, sum(decisions)::int AS count,
+      (sum(decisions) FILTER (WHERE status <> 'superseded'))::int AS standing
+    FROM (${sql.join(parts, sql` UNION ALL `)}) AS parts (ruleset_id, ruleset_version, status, decisions)
+    GROUP BY ruleset_id, ruleset_version HAVING sum(decisions) > 0`)
+  return sortByRulesetVersion(rows.map(r => ({ ...r, standing: r.standing ?? 0 })))
 }
 
 function countBy<K extends string>(groups: Group[], key: (g: Group) => K) {
@@ -137,7 +148,7 @@ export async function decisionOverview(query: OverviewQuery) {
     disagreedRules(query),
     useDb().select({ id: projectsTable.id, code: projectsTable.code, name: projectsTable.name, archived: projectsTable.archived })
       .from(projectsTable).where(query.projectId ? sql`${projectsTable.id} = ${query.projectId}` : undefined).orderBy(projectsTable.code),
-    decisionsByRulesetVersion(summariesInRange(query)),
+    rulesetVersions(query),
   ])
 
   const statusCounts = Object.fromEntries(DECISION_STATUSES.map(st => [st, 0])) as Record<DecisionStatus, number>
