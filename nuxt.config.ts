@@ -118,10 +118,15 @@ export default defineNuxtConfig({
   typescript: { strict: true },
   hooks: {
     // No prefetch hints for dynamically imported chunks (other pages, lazy components): the
-    // browser downloads what the page shows, and the rest when it is used. Links to other pages
-    // still prefetch their page as they come into view.
+    // browser downloads what the page shows, and the rest when it is used.
     'build:manifest': (manifest) => {
       for (const chunk of Object.values(manifest)) chunk.prefetch = false
     },
+  },
+  experimental: {
+    // A link prefetches its page when pointed at or focused, not as it scrolls into view: a list
+    // of a hundred decisions would otherwise fetch the decision page (its chart and markdown code)
+    // before anyone chose one.
+    defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } },
   },
 })

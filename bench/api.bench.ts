@@ -209,7 +209,8 @@ async function pages(app: RunningServer) {
     console.log('\nPages: DEMO_DATABASE_URL is not set, so the browser comparison is skipped')
     return
   }
-  await demoDatabase(demoUrl)
+  // Rebuilt as the owner (the server's own role may not drop the schema).
+  await demoDatabase(process.env.DEMO_DATABASE_OWNER_URL || demoUrl)
   const demoApp = await startApp(demoUrl)
   const browser = await launchBrowser()
   try {

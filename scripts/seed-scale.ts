@@ -11,7 +11,8 @@ import { sql } from 'drizzle-orm'
 import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres'
 import { migrate } from 'drizzle-orm/node-postgres/migrator'
 import pg from 'pg'
-import { recordInLedger, recordRuleset } from '../server/db/ledger-records'
+import { appendLedgerEntries } from '../server/db/ledger'
+import { ledgerEntryFor, recordRuleset } from '../server/db/ledger-records'
 import * as schema from '../server/db/schema'
 import { DEMO_DOMAIN, seedDemo } from '../server/db/seed-demo'
 import { writeSummaries } from '../server/utils/decisions/summary'
@@ -94,10 +95,10 @@ async function insertBatch(batch: Planned[]) {
     await recordRuleset(tx)
     const eventsOf = new Map<number, typeof events>()
     for (const event of events) eventsOf.set(event.decisionId, [...(eventsOf.get(event.decisionId) ?? []), event])
-    for (const revision of revisions) {
-      await recordInLedger(tx, 'decision_revisions', revision)
-      for (const event of eventsOf.get(revision.decisionId) ?? []) await recordInLedger(tx, 'decision_events', event)
-    }
+    await appendLedgerEntries(tx, revisions.flatMap(revision => [
+      ledgerEntryFor('decision_revisions', revision),
+      ...(eventsOf.get(revision.decisionId) ?? []).map(event => ledgerEntryFor('decision_events', event)),
+    ]))
     await writeSummaries(tx, batch.map(p => p.decision.id!))
   })
 }

@@ -25,9 +25,17 @@ export type HashedFields = {
   createdAt: Date
 }
 
-export function eventHash(prevHash: string, event: HashedFields): string {
+/**
+ * sha256(previous hash + RFC 8785 JSON of an event's fields and the key of the chain it belongs to,
+ * e.g. { decisionId }): the one hash of every chained history (decisions, the ruleset history).
+ */
+export function chainedEventHash(
+  prevHash: string,
+  chainKey: Record<string, number>,
+  event: { seq: number; type: string; actorId: number | null; actorRole: string | null; payload: unknown; createdAt: Date },
+): string {
   const canonical = canonicalize({
-    decisionId: event.decisionId,
+    ...chainKey,
     seq: event.seq,
     type: event.type,
     actorId: event.actorId,
@@ -36,6 +44,10 @@ export function eventHash(prevHash: string, event: HashedFields): string {
     createdAt: event.createdAt.toISOString(),
   })
   return sha256Hex(prevHash + canonical)
+}
+
+export function eventHash(prevHash: string, event: HashedFields): string {
+  return chainedEventHash(prevHash, { decisionId: event.decisionId }, event)
 }
 
 /**

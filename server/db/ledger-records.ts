@@ -5,7 +5,7 @@
 import { eq, inArray, sql } from 'drizzle-orm'
 import { RULESET } from '../../shared/rules'
 import { eventHash } from './event-chain'
-import { appendLedgerEntry, canonicalHash, lockLedger, type LedgerDbOrTx } from './ledger'
+import { appendLedgerEntry, canonicalHash, lockLedger, type LedgerDbOrTx, type LedgerEntryInput } from './ledger'
 import * as schema from './schema'
 
 type RevisionRow = typeof schema.decisionRevisions.$inferSelect
@@ -169,17 +169,22 @@ export const RECORD_SOURCES: Record<string, RecordSource> = {
   ruleset_events: rulesetEventSource,
 }
 
-/** Appends a newly written row of one of RECORD_SOURCES' tables to the ledger, in the caller's transaction. */
-export async function recordInLedger(tx: LedgerDbOrTx, table: keyof typeof RECORD_SOURCES, row: Record<string, unknown>) {
+/** The ledger entry of a newly written row of one of RECORD_SOURCES' tables. */
+export function ledgerEntryFor(table: keyof typeof RECORD_SOURCES, row: Record<string, unknown>): LedgerEntryInput {
   const source = RECORD_SOURCES[table]!
   const subject = source.subject(row)
-  await appendLedgerEntry(tx, {
+  return {
     subjectType: subject.type,
     subjectId: subject.id,
     type: source.entryType,
     record: { table: source.table, id: source.id(row) },
     recordHash: source.hash(row),
-  })
+  }
+}
+
+/** Appends a newly written row of one of RECORD_SOURCES' tables to the ledger, in the caller's transaction. */
+export async function recordInLedger(tx: LedgerDbOrTx, table: keyof typeof RECORD_SOURCES, row: Record<string, unknown>) {
+  await appendLedgerEntry(tx, ledgerEntryFor(table, row))
 }
 
 /** Inserts a stored revision and its ledger entry (and the ruleset it was advised under, the first time). */

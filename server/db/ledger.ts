@@ -73,27 +73,40 @@ export async function ledgerHead(db: LedgerDbOrTx) {
  * app: the head is read after the lock is taken, so it is the previous holder's committed entry).
  * The lock is held until the transaction ends, so keep what follows an append short.
  */
-export async function appendLedgerEntry(tx: LedgerDbOrTx, input: {
+export type LedgerEntryInput = {
   subjectType: LedgerSubjectType
   subjectId: string | number
   type: string
   record?: { table: string; id: number }
   recordHash: string
-}) {
-  await lockLedger(tx)
-  const head = await ledgerHead(tx)
-  const fields: LedgerFields = {
-    seq: head.seq + 1,
-    subjectType: input.subjectType,
-    subjectId: String(input.subjectId),
-    type: input.type,
-    recordTable: input.record?.table ?? null,
-    recordId: input.record?.id ?? null,
-    recordHash: input.recordHash,
-    // Millisecond precision, what a JS Date keeps, so the stored time hashes the same on read.
-    createdAt: new Date(),
-  }
-  const [entry] = await tx.insert(schema.ledgerEntries)
-    .values({ ...fields, prevHash: head.hash, hash: ledgerEntryHash(head.hash, fields) }).returning()
+}
+
+export async function appendLedgerEntry(tx: LedgerDbOrTx, input: LedgerEntryInput) {
+  const [entry] = await appendLedgerEntries(tx, [input])
   return entry!
+}
+
+/** Appends entries in the order given, chained one to the next, in one statement (bulk writers: the scale seed). */
+export async function appendLedgerEntries(tx: LedgerDbOrTx, inputs: LedgerEntryInput[]) {
+  if (!inputs.length) return []
+  await lockLedger(tx)
+  let { seq, hash } = await ledgerHead(tx)
+  // Millisecond precision, what a JS Date keeps, so the stored time hashes the same on read.
+  const createdAt = new Date()
+  const rows = inputs.map((input) => {
+    const fields: LedgerFields = {
+      seq: ++seq,
+      subjectType: input.subjectType,
+      subjectId: String(input.subjectId),
+      type: input.type,
+      recordTable: input.record?.table ?? null,
+      recordId: input.record?.id ?? null,
+      recordHash: input.recordHash,
+      createdAt,
+    }
+    const row = { ...fields, prevHash: hash, hash: ledgerEntryHash(hash, fields) }
+    hash = row.hash
+    return row
+  })
+  return tx.insert(schema.ledgerEntries).values(rows).returning()
 }

@@ -5,43 +5,10 @@ import pg from 'pg'
 import { SMTPServer } from 'smtp-server'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient, demoEmail, signIn } from '../support/api-client'
+import { inbox, sentTo, until, waitForMail } from '../support/mail'
 import { freePort, startServer } from '../support/test-server'
 
-type Message = { id: string; subject: string; text: string; to: { address: string }[] }
-
-const MAILDEV = process.env.TEST_MAILDEV_URL
-if (!MAILDEV) throw new Error('TEST_MAILDEV_URL is not set: run the tests through npm test (scripts/test.sh)')
-
 const unique = () => `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`
-
-async function inbox(): Promise<Message[]> {
-  const res = await fetch(`${MAILDEV}/api/email`)
-  if (!res.ok) throw new Error(`maildev answered ${res.status}`)
-  return res.json() as Promise<Message[]>
-}
-
-const sentTo = (m: Message, address: string) => m.to.some(t => t.address.toLowerCase() === address.toLowerCase())
-
-/** Waits until the inbox holds at least `count` messages that match. */
-async function waitForMail(match: (m: Message) => boolean, { count = 1, timeout = 15_000 } = {}) {
-  const deadline = Date.now() + timeout
-  for (;;) {
-    const found = (await inbox()).filter(match)
-    if (found.length >= count) return found
-    if (Date.now() > deadline) throw new Error(`expected ${count} matching message(s) in the inbox, found ${found.length}`)
-    await new Promise(r => setTimeout(r, 250))
-  }
-}
-
-async function until<T>(what: string, probe: () => Promise<T | undefined>, timeout = 15_000): Promise<T> {
-  const deadline = Date.now() + timeout
-  for (;;) {
-    const value = await probe()
-    if (value !== undefined) return value
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`)
-    await new Promise(r => setTimeout(r, 250))
-  }
-}
 
 function linkToken(text: string) {
   const match = text.match(/\/set-password\?token=([A-Za-z0-9_-]+)/)

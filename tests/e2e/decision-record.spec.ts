@@ -119,6 +119,8 @@ test('guidance opens beside the form, focus lands on the advice, and leaving ask
   // After "Get advice" focus is on the advice's heading: the next Tab stays in the advice.
   await page.getByTestId('get-advice').click()
   await expect(page.getByTestId('advice-heading')).toBeFocused()
+  // The advice view's code arrives with the first preview; a person reads the heading before tabbing on.
+  await expect(page.getByTestId('advice-preview').getByTestId('advice-wall-treatment')).toBeVisible()
   await page.keyboard.press('Tab')
   expect(await page.evaluate(() => Boolean(document.activeElement?.closest('[data-testid="advice-preview"]')))).toBe(true)
 
@@ -144,8 +146,11 @@ test('guidance opens beside the form, focus lands on the advice, and leaving ask
   page.once('dialog', (dialog) => { void dialog.accept() })
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Projects' }).click()
   await expect(page).toHaveURL(/\/projects$/)
+  // Back once the projects page has loaded (a person sees it first), not during its navigation.
+  await expect(page.getByRole('heading', { level: 1, name: 'Projects' })).toBeVisible()
   await page.goBack()
   await expect(page).toHaveURL(/\/decisions\/new$/)
+  await expect(page.getByRole('heading', { level: 1, name: 'New case' })).toBeVisible()
   await expect(page.getByTestId('draft-restored')).toBeVisible()
   await expect(page.locator('#field-velocity')).toHaveValue('7.5')
   await expect(page.locator('#field-length')).toHaveValue('36')

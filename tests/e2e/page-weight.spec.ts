@@ -94,5 +94,8 @@ test('the questionnaire\'s first load stays within 200 KB of gzip script; the ad
     await page.getByTestId('get-advice').click()
     await expect(page.getByTestId('advice-view')).toBeVisible()
   })
-  expect(librariesOf(more)).toEqual(expect.arrayContaining(['chart', 'markdown']))
+  // The chart's code is not in the first load (above); it may arrive once the page is idle, before
+  // the preview, so what counts is that the chart is drawn.
+  expect(librariesOf(more)).toContain('markdown')
+  await expect(page.getByTestId('advice-view').locator('canvas')).toBeVisible()
 })

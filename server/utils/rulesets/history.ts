@@ -1,10 +1,9 @@
 // The ruleset history: one append-only hash chain over every version's installation and
 // publication, hashed like the decision record (server/db/event-chain.ts). Relative imports only:
 // the demo seed writes the same chain under plain Node.
-import canonicalize from 'canonicalize'
 import { asc, desc, sql } from 'drizzle-orm'
 import type { Role } from '../../../shared/utils/roles'
-import { GENESIS_HASH, sha256Hex } from '../../db/event-chain'
+import { GENESIS_HASH, chainedEventHash } from '../../db/event-chain'
 import { recordInLedger } from '../../db/ledger-records'
 import * as schema from '../../db/schema'
 import type { DbOrTx } from '../../db/types'
@@ -30,16 +29,7 @@ export async function lockRulesetCatalogue(tx: DbOrTx) {
 }
 
 export function rulesetEventHash(prevHash: string, event: RulesetHashedFields): string {
-  const canonical = canonicalize({
-    seq: event.seq,
-    rulesetId: event.rulesetId,
-    type: event.type,
-    actorId: event.actorId,
-    actorRole: event.actorRole,
-    payload: event.payload ?? {},
-    createdAt: event.createdAt.toISOString(),
-  })
-  return sha256Hex(prevHash + canonical)
+  return chainedEventHash(prevHash, { rulesetId: event.rulesetId }, event)
 }
 
 /** Appends one event inside the caller's transaction, which must hold the catalogue's lock. */
