@@ -9,20 +9,29 @@ import { RECORD_SOURCES, revisionHash } from './ledger-records'
 import type { LedgerProblem } from '../../shared/schemas/ledger'
 import * as schema from './schema'
 
+type RevisionRow = typeof schema.decisionRevisions.$inferSelect
+
 export type DecisionCheck = { valid: boolean; checked: number; brokenAt: number | null; problems: LedgerProblem[] }
 
 // Decisions checked per round trip: the revisions' stored advice is read to be hashed.
 const CHUNK = 200
 
-export async function checkDecisions(db: LedgerDbOrTx, decisionIds: number[]): Promise<Map<number, DecisionCheck>> {
+/**
+ * `revisionContent: false` (the audit list and its export) checks that each revision is in the
+ * ledger but does not read and rehash its stored advice: the decision's own check and the ledger
+ * verification do, and a list stays as fast at 100,000 decisions as at ten.
+ */
+export type DecisionCheckOptions = { revisionContent?: boolean }
+
+export async function checkDecisions(db: LedgerDbOrTx, decisionIds: number[], options: DecisionCheckOptions = {}): Promise<Map<number, DecisionCheck>> {
   const result = new Map<number, DecisionCheck>()
   for (let i = 0; i < decisionIds.length; i += CHUNK) {
-    for (const [id, check] of await checkChunk(db, decisionIds.slice(i, i + CHUNK))) result.set(id, check)
+    for (const [id, check] of await checkChunk(db, decisionIds.slice(i, i + CHUNK), options.revisionContent ?? true)) result.set(id, check)
   }
   return result
 }
 
-async function checkChunk(db: LedgerDbOrTx, decisionIds: number[]) {
+async function checkChunk(db: LedgerDbOrTx, decisionIds: number[], revisionContent: boolean) {
   const result = new Map<number, DecisionCheck>()
   if (!decisionIds.length) return result
   const ids = `{${decisionIds.join(',')}}`
@@ -31,10 +40,13 @@ async function checkChunk(db: LedgerDbOrTx, decisionIds: number[]) {
   const l = schema.ledgerEntries
   const [events, revisions, entries, states] = await Promise.all([
     db.select().from(e).where(inArray(e.decisionId, decisionIds)).orderBy(asc(e.decisionId), asc(e.seq)),
-    db.select().from(r).where(inArray(r.decisionId, decisionIds)),
+    revisionContent
+      ? db.select().from(r).where(inArray(r.decisionId, decisionIds))
+      : db.select({ id: r.id, decisionId: r.decisionId, revision: r.revision }).from(r).where(inArray(r.decisionId, decisionIds)),
     db.select().from(l).where(sql`${l.subjectType} = 'decision' AND ${l.subjectId} = ANY(${`{${decisionIds.map(String).join(',')}}`}::text[])`),
     db.execute<{ decision_id: number; events: number; mismatch: string }>(
-      sql`SELECT decision_id, events, mismatch FROM decision_state_check WHERE decision_id = ANY(${ids}::int[]) AND mismatch IS NOT NULL`),
+      // The function, not the view: it reads only these decisions' events (the view replays them all).
+      sql`SELECT decision_id, events, mismatch FROM decision_state_check_of(${ids}::int[]) WHERE mismatch IS NOT NULL`),
   ])
   const group = <T extends { decisionId: number }>(list: T[]) => {
     const map = new Map<number, T[]>()
@@ -71,7 +83,7 @@ async function checkChunk(db: LedgerDbOrTx, decisionIds: number[]) {
     for (const revision of revisionsOf.get(decisionId) ?? []) {
       const entry = recorded.get(`decision_revisions:${revision.id}`)
       if (!entry) problems.push({ kind: 'altered', decisionId, detail: `Revision ${revision.revision} is not in the ledger: it was added behind its back` })
-      else if (entry.recordHash !== revisionHash(revision)) problems.push({ kind: 'altered', decisionId, seq: entry.seq, detail: `Revision ${revision.revision} was changed after ledger entry #${entry.seq} recorded it` })
+      else if (revisionContent && entry.recordHash !== revisionHash(revision as RevisionRow)) problems.push({ kind: 'altered', decisionId, seq: entry.seq, detail: `Revision ${revision.revision} was changed after ledger entry #${entry.seq} recorded it` })
       recorded.delete(`decision_revisions:${revision.id}`)
     }
     // The decision's other records (verification records): each against the hash its entry holds.

@@ -27,7 +27,12 @@ CREATE TRIGGER ledger_verifications_no_truncate BEFORE TRUNCATE ON ledger_verifi
 -- state-changing event gives the status, the last created/revised event the current revision and
 -- title, the last override event the override. A new event type that changes a decision's row
 -- must be added here (and is otherwise treated as changing nothing, like a comment).
-CREATE VIEW decision_history_state AS
+-- A function of the decisions asked for (every one when ids is NULL), so that a check of a page of
+-- decisions reads only their events: the planner inlines it, and the views below are the whole set.
+CREATE FUNCTION decision_history_state_of(ids int[]) RETURNS TABLE (
+  decision_id int, events int, status decision_status, current_revision int, title text, supersedes int,
+  superseded_by int, override_payload jsonb, override_actor int
+) LANGUAGE sql STABLE AS $$
 SELECT
   e.decision_id,
   count(*)::int AS events,
@@ -46,7 +51,11 @@ SELECT
   (array_agg(e.payload ORDER BY e.seq DESC) FILTER (WHERE e.type = 'overridden'))[1] AS override_payload,
   (array_agg(e.actor_id ORDER BY e.seq DESC) FILTER (WHERE e.type = 'overridden'))[1] AS override_actor
 FROM decision_events e
-GROUP BY e.decision_id;
+WHERE ids IS NULL OR e.decision_id = ANY(ids)
+GROUP BY e.decision_id
+$$;
+--> statement-breakpoint
+CREATE VIEW decision_history_state AS SELECT * FROM decision_history_state_of(NULL);
 --> statement-breakpoint
 -- An override event holds the whole override as stored (payload.override: the reviewer's choice,
 -- the near-wall figures and cost for it, the reviewer). Events recorded before it held the whole
@@ -65,7 +74,8 @@ END;
 $$;
 --> statement-breakpoint
 -- Each decision beside what its history says; mismatch is null when they agree.
-CREATE VIEW decision_state_check AS
+CREATE FUNCTION decision_state_check_of(ids int[]) RETURNS TABLE (decision_id int, events int, mismatch text)
+LANGUAGE sql STABLE AS $$
 SELECT
   d.id AS decision_id,
   coalesce(s.events, 0) AS events,
@@ -86,7 +96,11 @@ SELECT
         ELSE 'its override differs from the one its history recorded' END END
   ), '') END AS mismatch
 FROM decisions d
-LEFT JOIN decision_history_state s ON s.decision_id = d.id;
+LEFT JOIN decision_history_state_of(ids) s ON s.decision_id = d.id
+WHERE ids IS NULL OR d.id = ANY(ids)
+$$;
+--> statement-breakpoint
+CREATE VIEW decision_state_check AS SELECT * FROM decision_state_check_of(NULL);
 --> statement-breakpoint
 -- The columns the events decide change only with the event that records the change: checked at
 -- commit, when the transaction's event is in. Whoever may switch this off (the owner) is caught by
@@ -95,7 +109,7 @@ CREATE FUNCTION decision_state_follows_history() RETURNS trigger LANGUAGE plpgsq
 DECLARE
   problem text;
 BEGIN
-  SELECT c.mismatch INTO problem FROM decision_state_check c WHERE c.decision_id = NEW.id;
+  SELECT c.mismatch INTO problem FROM decision_state_check_of(ARRAY[NEW.id]) c;
   IF problem IS NOT NULL THEN
     RAISE EXCEPTION 'decision %: %', NEW.id, problem USING
       ERRCODE = 'integrity_constraint_violation',

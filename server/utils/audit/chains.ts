@@ -1,5 +1,5 @@
-// The check of each decision of a page or an export batch (chain, ledger, state: the same check as
-// verifyChain), plus the tail of its history, from one read per kind for all of them (the
+// The check of each decision of a page or an export batch (chain, ledger entries, state: verifyChain's
+// check but for rehashing the revisions' stored advice, see checkDecisions), plus the tail of its history, from one read per kind for all of them (the
 // decisions passed as one array, not a parameter each).
 import { sql } from 'drizzle-orm'
 import { checkDecisions, type DecisionCheck } from '../../db/ledger-decision-check'
@@ -11,7 +11,7 @@ export async function chainFacts(db: DbOrTx, decisionIds: number[]) {
   const result = new Map<number, ChainFacts>()
   if (!decisionIds.length) return result
   const [checks, tails] = await Promise.all([
-    checkDecisions(db, decisionIds),
+    checkDecisions(db, decisionIds, { revisionContent: false }),
     // Events are numbered from 1 without gaps (a gap fails the chain check), so the last one's number counts them.
     db.execute<{ decision_id: number; seq: number; created_at: Date | string; hash: string }>(sql`
       SELECT DISTINCT ON (decision_id) decision_id, seq, created_at, hash FROM decision_events
