@@ -266,13 +266,16 @@ describe('properties over valid cases (fast-check)', () => {
     expect(approach(turbulent, 'wmles').cells).toBeLessThan(approach(turbulent, 'wrles').cells)
   })
 
-  it('DNS, WRLES and WMLES cells grow with Re (the velocity) (Choi & Moin 2012)', () => {
+  it('DNS, WRLES and WMLES cells grow with Re (the velocity) below Mach 0.3 (Choi & Moin 2012)', () => {
     fc.assert(
       fc.property(validCase, fc.double({ min: 1.1, max: 10, noNaN: true }), (input, factor) => {
         const faster = { ...input, velocity: Math.min(1e4, (input.velocity as number) * factor) }
         fc.pre(faster.velocity > (input.velocity as number))
         const slow = advise(input)
         const fast = advise(faster)
+        // Below Mach 0.3: above it, wall heating (the recovery temperature) raises the viscosity the
+        // wall-scaled counts use, so they need not grow with velocity (White, Viscous Fluid Flow; from memory).
+        fc.pre((fast.mach ?? 0) < 0.3)
         // A laminar or transitional boundary layer needs a resolved wall whatever the approach
         // (Langtry & Menter 2009, AIAA J. 47, 2894), so wall-modelled LES is counted at wall-resolved
         // resolution until the layer turns turbulent, and drops to its wall-modelled count there:
