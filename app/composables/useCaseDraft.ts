@@ -1,6 +1,7 @@
 import type { Ref } from 'vue'
 import { unitSystemOf, type UnitSystem } from '#shared/units'
 import type { CaseFormValues } from '#shared/schemas/case-form'
+import type { CaseFormHandle } from './useCaseForm'
 
 /** An unsaved case kept in this browser: the form as it was, the title and the notes. */
 export interface CaseDraft {
@@ -64,6 +65,16 @@ export function useCaseDraft(key: Ref<string> | (() => string), current: () => O
     return draft
   }
 
+  /** After mounting: the kept draft, if any, back into the form, the title and the notes. */
+  async function restoreInto(form: Ref<CaseFormHandle | null>, title: Ref<string>, notes: Ref<string>) {
+    await nextTick()
+    const kept = take()
+    if (!kept || !form.value) return
+    title.value = kept.title
+    notes.value = kept.notes
+    await form.value.restore(kept.values, kept.unitSystem)
+  }
+
   function clear() {
     clearTimeout(timer)
     restoredFrom.value = null
@@ -75,5 +86,5 @@ export function useCaseDraft(key: Ref<string> | (() => string), current: () => O
     }
   }
 
-  return { take, clear, store, restoredFrom }
+  return { restoreInto, clear, store, restoredFrom }
 }

@@ -23,16 +23,26 @@ const CHUNK = 200
  */
 export type DecisionCheckOptions = { revisionContent?: boolean }
 
+/** The end of a decision's history as read for its check: how many events, the last one's time and hash. */
+export type HistoryTail = { events: number; lastAt: Date | null; lastHash: string | null }
+
 export async function checkDecisions(db: LedgerDbOrTx, decisionIds: number[], options: DecisionCheckOptions = {}): Promise<Map<number, DecisionCheck>> {
   const result = new Map<number, DecisionCheck>()
+  for (const [id, { check }] of await checkDecisionsWithTails(db, decisionIds, options)) result.set(id, check)
+  return result
+}
+
+/** checkDecisions, with the tail of each history from the same read of its events (the audit's rows show both). */
+export async function checkDecisionsWithTails(db: LedgerDbOrTx, decisionIds: number[], options: DecisionCheckOptions = {}) {
+  const result = new Map<number, { check: DecisionCheck; tail: HistoryTail }>()
   for (let i = 0; i < decisionIds.length; i += CHUNK) {
-    for (const [id, check] of await checkChunk(db, decisionIds.slice(i, i + CHUNK), options.revisionContent ?? true)) result.set(id, check)
+    for (const [id, checked] of await checkChunk(db, decisionIds.slice(i, i + CHUNK), options.revisionContent ?? true)) result.set(id, checked)
   }
   return result
 }
 
 async function checkChunk(db: LedgerDbOrTx, decisionIds: number[], revisionContent: boolean) {
-  const result = new Map<number, DecisionCheck>()
+  const result = new Map<number, { check: DecisionCheck; tail: HistoryTail }>()
   if (!decisionIds.length) return result
   const ids = `{${decisionIds.join(',')}}`
   const e = schema.decisionEvents
@@ -100,7 +110,11 @@ async function checkChunk(db: LedgerDbOrTx, decisionIds: number[], revisionConte
         ? { kind: 'gap', decisionId, detail: 'It has no events left: its history is gone' }
         : { kind: 'state', decisionId, detail: `Its row disagrees with its history: ${state.mismatch}` })
     }
-    result.set(decisionId, { ...chain, valid: chain.valid && problems.length === 0, problems })
+    const last = own.at(-1)
+    result.set(decisionId, {
+      check: { ...chain, valid: chain.valid && problems.length === 0, problems },
+      tail: { events: own.length, lastAt: last?.createdAt ?? null, lastHash: last?.hash ?? null },
+    })
   }
   return result
 }

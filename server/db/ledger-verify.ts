@@ -16,13 +16,14 @@
 import type { KeyObject } from 'node:crypto'
 import { performance } from 'node:perf_hooks'
 import canonicalize from 'canonicalize'
-import { asc, desc, getTableColumns, sql, type SQL } from 'drizzle-orm'
+import { asc, desc, sql, type SQL } from 'drizzle-orm'
 import { LEDGER_GENESIS, ledgerEntryHash, ledgerHead, type LedgerDbOrTx } from './ledger'
 import { checkpointSignatureHolds } from './ledger-checkpoint'
 import { signText, verifyText, type SigningKey } from './ledger-keys'
 import { RECORD_SOURCES, rulesetHash, rulesetSubject } from './ledger-records'
 import { PROBLEM_KINDS, type LedgerProblem, type LedgerProblemKind } from '../../shared/schemas/ledger'
 import * as schema from './schema'
+import { summaryDrift } from './summary-drift'
 import type { Db } from './types'
 
 export { PROBLEM_KINDS, type LedgerProblem, type LedgerProblemKind }
@@ -209,21 +210,12 @@ async function checkState(tx: LedgerDbOrTx, problems: Problems) {
 
 // The summaries the lists and the overview read are derived (decision_summary_source, migration
 // 0012): a row that no longer says what its decision's record gives, or is missing, is reported.
-const SUMMARY_COLUMNS = Object.values(getTableColumns(schema.decisionSummaries)).map(c => c.name).filter(n => n !== 'decision_id')
-
 async function checkSummaries(tx: LedgerDbOrTx, problems: Problems) {
-  const row = (alias: string) => sql.raw(`ROW(${SUMMARY_COLUMNS.map(name => `${alias}.${name}`).join(', ')})`)
-  const differs = sql.raw(SUMMARY_COLUMNS.map(name => `CASE WHEN s.${name} IS DISTINCT FROM v.${name} THEN '${name}' END`).join(', '))
-  const found = await rows<{ decision_id: number; missing: boolean; orphan: boolean; columns: string[] }>(tx, sql`
-    SELECT coalesce(v.decision_id, s.decision_id) AS decision_id, s.decision_id IS NULL AS missing, v.decision_id IS NULL AS orphan,
-      array_remove(ARRAY[${differs}], NULL) AS columns
-    FROM decision_summary_source v FULL JOIN decision_summaries s ON s.decision_id = v.decision_id
-    WHERE s.decision_id IS NULL OR v.decision_id IS NULL OR ${row('s')} IS DISTINCT FROM ${row('v')}
-    ORDER BY 1`)
+  const found = await summaryDrift(tx, null)
   // A decision already reported is not reported again for the summary its tampered record left behind.
   const reported = new Set(problems.list.map(p => p.decisionId).filter(id => id !== undefined))
   for (const r of found) {
-    const decisionId = Number(r.decision_id)
+    const { decisionId } = r
     if (reported.has(decisionId)) continue
     // A summary left behind by a decision that is gone is one more trace of the removal.
     if (r.orphan) problems.add({ kind: 'gap', decisionId, detail: `Decision ${decisionId} is gone, but its summary row is still there` })

@@ -1,20 +1,11 @@
 // Shapes of the decision record that the database, the server and the pages share (the schema
 // types its jsonb columns with them). Type-only imports: nothing of the engine is bundled by these.
-import type { ApproachId, WallFigures, WallTreatment } from '../rules'
+import type { ApproachCostFigures, ApproachId, WallFigures, WallTreatment } from '../rules'
 import type { EnteredCase } from '../schemas/case-form'
 import type { UnitSystem } from '../units'
 
-/** The cost of one approach with one wall treatment, as the cost model counts it. */
-export interface ChoiceCost {
-  cells: number
-  timeSteps: number
-  coreHours: number
-  wallClockHours: number
-  memoryGB: number
-  feasible: boolean
-  /** near-wall layers counted (RANS-family approaches), else null */
-  layers: number | null
-}
+/** The cost of one approach with one wall treatment, as the cost model counts it (costFor's figures). */
+export type ChoiceCost = Pick<ApproachCostFigures, 'cells' | 'timeSteps' | 'coreHours' | 'wallClockHours' | 'memoryGB' | 'feasible' | 'layers'>
 
 /** A choice other than the engine's, recomputed: its near-wall mesh and its cost. */
 export interface ChoiceFigures {

@@ -3,11 +3,9 @@
 // server/db/migrations/0012_decision_summary_source.sql) inside the transaction of every change,
 // and checked against that view. The overview's tallies follow by trigger. Relative imports only,
 // so the demo and scale seeds write summaries through the same statement.
-import { getTableColumns, sql } from 'drizzle-orm'
-import * as schema from '../../db/schema'
+import { sql } from 'drizzle-orm'
+import { summaryDrift as driftOf } from '../../db/summary-drift'
 import type { DbOrTx } from '../../db/types'
-
-const COLUMN_NAMES = Object.values(getTableColumns(schema.decisionSummaries)).map(column => column.name)
 
 const idArray = (ids: number[]) => sql`${`{${ids.map(id => Math.trunc(id)).join(',')}}`}::int[]`
 
@@ -26,15 +24,6 @@ export function writeDecisionSummary(tx: DbOrTx, decisionId: number) {
  * columns that differ: a summary row altered behind the application's back shows here.
  */
 export async function summaryDrift(db: DbOrTx, decisionIds: number[]) {
-  if (!decisionIds.length) return []
-  const compared = COLUMN_NAMES.filter(name => name !== 'decision_id')
-  const differs = sql.raw(compared.map(name => `CASE WHEN s.${name} IS DISTINCT FROM v.${name} THEN '${name}' END`).join(', '))
-  const row = (alias: string) => sql.raw(`ROW(${compared.map(name => `${alias}.${name}`).join(', ')})`)
-  const { rows } = await db.execute<{ decision_id: number; columns: string[] }>(sql`
-    SELECT v.decision_id,
-      CASE WHEN s.decision_id IS NULL THEN ARRAY['decision_id'] ELSE array_remove(ARRAY[${differs}], NULL) END AS columns
-    FROM decision_summary_source v
-    LEFT JOIN decision_summaries s ON s.decision_id = v.decision_id
-    WHERE v.decision_id = ANY(${idArray(decisionIds)}) AND (s.decision_id IS NULL OR ${row('s')} IS DISTINCT FROM ${row('v')})`)
-  return rows.map(r => ({ decisionId: Number(r.decision_id), missing: r.columns[0] === 'decision_id', columns: r.columns }))
+  // These decisions exist: a summary outliving its decision is the ledger verification's to report.
+  return (await driftOf(db, decisionIds)).filter(d => !d.orphan).map(({ decisionId, missing, columns }) => ({ decisionId, missing, columns }))
 }

@@ -49,6 +49,18 @@ function daysWhere(days: { from?: Date; to?: Date }[], projectId: number | undef
   return sql`(${sql.join(spans, sql` OR `)})${projectIs(projectId, 'project_id')}`
 }
 
+/**
+ * The range's rows as one UNION ALL: whole months from a tally (`fromTally`), the days outside them
+ * from the summaries (`fromSummaries`), each given its WHERE condition.
+ */
+function rangeRows(query: OverviewQuery, fromTally: (where: SQL) => SQL, fromSummaries: (where: SQL) => SQL) {
+  const { months, days } = overviewRange(query)
+  const parts: SQL[] = []
+  if (months) parts.push(fromTally(monthsWhere(months, query.projectId)))
+  if (days.length) parts.push(fromSummaries(daysWhere(days, query.projectId)))
+  return sql.join(parts, sql` UNION ALL `)
+}
+
 type Group = {
   projectId: number; status: DecisionStatus; approach: string; model: string; engineApproach: string; overridden: boolean
   count: number; coreHours: number; budgetCoreHours: number; overBudget: number
@@ -56,20 +68,15 @@ type Group = {
 
 /** Decisions in the range grouped by everything the figures tell apart: a few hundred groups, however many decisions. */
 async function groupedDecisions(query: OverviewQuery): Promise<Group[]> {
-  const { months, days } = overviewRange(query)
-  const parts: SQL[] = []
-  if (months) {
-    parts.push(sql`SELECT project_id, status, approach, model, engine_approach, overridden, decisions, core_hours, budget_core_hours, over_budget
-      FROM decision_tallies WHERE ${monthsWhere(months, query.projectId)}`)
-  }
-  if (days.length) {
-    parts.push(sql`SELECT project_id, status, approach, model, engine_approach, overridden, 1, coalesce(core_hours, 0)::numeric,
-      budget_core_hours::numeric, coalesce((core_hours > budget_core_hours)::int, 0) FROM decision_summaries WHERE ${daysWhere(days, query.projectId)}`)
-  }
+  const parts = rangeRows(query,
+    where => sql`SELECT project_id, status, approach, model, engine_approach, overridden, decisions, core_hours, budget_core_hours, over_budget
+      FROM decision_tallies WHERE ${where}`,
+    where => sql`SELECT project_id, status, approach, model, engine_approach, overridden, 1, coalesce(core_hours, 0)::numeric,
+      budget_core_hours::numeric, coalesce((core_hours > budget_core_hours)::int, 0) FROM decision_summaries WHERE ${where}`)
   const { rows } = await useDb().execute<Group>(sql`SELECT project_id AS "projectId", status, approach, model, engine_approach AS "engineApproach",
       overridden, sum(decisions)::int AS count, sum(core_hours)::float8 AS "coreHours", sum(budget_core_hours)::float8 AS "budgetCoreHours",
       sum(over_budget)::int AS "overBudget"
-    FROM (${sql.join(parts, sql` UNION ALL `)}) AS parts (project_id, status, approach, model, engine_approach, overridden, decisions, core_hours, budget_core_hours, over_budget)
+    FROM (${parts}) AS parts (project_id, status, approach, model, engine_approach, overridden, decisions, core_hours, budget_core_hours, over_budget)
     GROUP BY project_id, status, approach, model, engine_approach, overridden
     HAVING sum(decisions) > 0`)
   return rows
@@ -77,36 +84,24 @@ async function groupedDecisions(query: OverviewQuery): Promise<Group[]> {
 
 /** The rules overriding reviewers named most often in the range (an override counts after its decision is superseded too). */
 async function disagreedRules(query: OverviewQuery) {
-  const { months, days } = overviewRange(query)
-  const parts: SQL[] = []
-  if (months) {
-    parts.push(sql`SELECT rule, decisions FROM decision_rule_tallies WHERE ${monthsWhere(months, query.projectId)}`)
-  }
-  if (days.length) {
-    parts.push(sql`SELECT rule, 1 FROM decision_summaries CROSS JOIN LATERAL unnest(disagreed_rules) AS rule
-      WHERE overridden AND ${daysWhere(days, query.projectId)}`)
-  }
+  const parts = rangeRows(query,
+    where => sql`SELECT rule, decisions FROM decision_rule_tallies WHERE ${where}`,
+    where => sql`SELECT rule, 1 FROM decision_summaries CROSS JOIN LATERAL unnest(disagreed_rules) AS rule WHERE overridden AND ${where}`)
   const { rows } = await useDb().execute<{ rule: string; count: number }>(sql`SELECT rule, sum(decisions)::int AS count
-    FROM (${sql.join(parts, sql` UNION ALL `)}) AS parts (rule, decisions)
+    FROM (${parts}) AS parts (rule, decisions)
     GROUP BY rule HAVING sum(decisions) > 0 ORDER BY count DESC, rule LIMIT ${TOP}`)
   return rows.map(r => ({ ...r, title: RULE_TITLES.get(r.rule) ?? null }))
 }
 
-
 /** Decisions per ruleset version in the range: whole months from their tally, the days outside them from the summaries. */
 async function rulesetVersions(query: OverviewQuery) {
-  const { months, days } = overviewRange(query)
-  const parts: SQL[] = []
-  if (months) {
-    parts.push(sql`SELECT ruleset_id, ruleset_version, status, decisions FROM decision_ruleset_tallies WHERE ${monthsWhere(months, query.projectId)}`)
-  }
-  if (days.length) {
-    parts.push(sql`SELECT ruleset_id, ruleset_version, status, 1 FROM decision_summaries WHERE ${daysWhere(days, query.projectId)}`)
-  }
+  const parts = rangeRows(query,
+    where => sql`SELECT ruleset_id, ruleset_version, status, decisions FROM decision_ruleset_tallies WHERE ${where}`,
+    where => sql`SELECT ruleset_id, ruleset_version, status, 1 FROM decision_summaries WHERE ${where}`)
   const { rows } = await useDb().execute<{ key: string; version: string; count: number; standing: number }>(sql`
     SELECT ruleset_id AS key, ruleset_version AS version, sum(decisions)::int AS count,
       (sum(decisions) FILTER (WHERE status <> 'superseded'))::int AS standing
-    FROM (${sql.join(parts, sql` UNION ALL `)}) AS parts (ruleset_id, ruleset_version, status, decisions)
+    FROM (${parts}) AS parts (ruleset_id, ruleset_version, status, decisions)
     GROUP BY ruleset_id, ruleset_version HAVING sum(decisions) > 0`)
   return sortByRulesetVersion(rows.map(r => ({ ...r, standing: r.standing ?? 0 })))
 }

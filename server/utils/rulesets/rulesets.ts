@@ -1,6 +1,6 @@
 // The ruleset catalogue as the routes see it: reading versions, the published one for advice,
 // drafting, editing, canonical cases and publication, with the server's refusals.
-import { count, eq, inArray, ne } from 'drizzle-orm'
+import { eq, inArray, ne, sql } from 'drizzle-orm'
 import { RulesetInvalidError, describeProblem, rulesetProblems, type Ruleset, type RulesetProblem } from '#shared/rules'
 import type { SessionUser } from '#shared/types/session'
 import type { RulesetCreateBody, RulesetUpdateBody } from '#shared/schemas/rulesets'
@@ -9,7 +9,6 @@ import { RULESET_EDITORS } from '#shared/utils/ruleset-status'
 import type { DbOrTx } from '../../db/types'
 import { conflict, notFound } from '../http/errors'
 import { tables, useDb } from '../db'
-import { currentRevisionJoin } from '../decisions/queries'
 import { checkCases } from './cases'
 import {
   compareVersions, insertDraft, installShippedRulesets, latestReleasedVersion, nextMinorVersion, publishDraft, readCases,
@@ -76,11 +75,14 @@ async function userNames(ids: (number | null)[]) {
   return new Map(rows.map(row => [row.id, row.name]))
 }
 
-/** How many decisions stand on each version: those whose current revision names it. */
+/**
+ * How many decisions stand on each version: those whose current revision names it, read from the
+ * monthly tally the summaries keep (a few rows however many decisions there are).
+ */
 async function decisionCounts() {
-  const r = tables.decisionRevisions
-  const rows = await useDb().select({ key: r.rulesetId, version: r.rulesetVersion, count: count() })
-    .from(tables.decisions).innerJoin(r, currentRevisionJoin).groupBy(r.rulesetId, r.rulesetVersion)
+  const t = tables.decisionRulesetTallies
+  const rows = await useDb().select({ key: t.rulesetId, version: t.rulesetVersion, count: sql<number>`sum(${t.decisions})::int` })
+    .from(t).groupBy(t.rulesetId, t.rulesetVersion)
   return new Map(rows.map(row => [`${row.key}@${row.version}`, row.count]))
 }
 
