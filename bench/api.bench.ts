@@ -7,7 +7,7 @@
  *  - POST /api/advice's throughput against GET /api/health's at 20 connections (autocannon);
  *  - /overview, /audit and /review in chromium at this size and at the demo's size;
  *  - the plans of each route's statements (EXPLAIN ANALYZE): scans used, sorts spilled to disk.
- * Options: --rounds 25 --duration 10 --loads 5 --skip-pages --skip-explain --skip-throughput.
+ * Options: --rounds 25 --duration 10 --loads 5 --skip-latency --skip-csv --skip-throughput --skip-pages --skip-explain.
  */
 import { rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
@@ -35,6 +35,8 @@ const { values: options } = parseArgs({
     'skip-pages': { type: 'boolean', default: false },
     'skip-explain': { type: 'boolean', default: false },
     'skip-throughput': { type: 'boolean', default: false },
+    'skip-latency': { type: 'boolean', default: false },
+    'skip-csv': { type: 'boolean', default: false },
   },
 })
 const scaleUrl = process.env.SCALE_DATABASE_URL ?? process.env.DATABASE_URL
@@ -252,8 +254,8 @@ async function plans() {
 
 const app = await startApp(scaleUrl)
 try {
-  await latencies(app)
-  await csvExport(app)
+  if (!options['skip-latency']) await latencies(app)
+  if (!options['skip-csv']) await csvExport(app)
   if (!options['skip-throughput']) await throughput(app)
   if (!options['skip-pages']) await pages(app)
 } finally {

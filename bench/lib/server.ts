@@ -21,7 +21,9 @@ export type RunningServer = Awaited<ReturnType<typeof startApp>>
 export async function startApp(databaseUrl: string, env: Record<string, string> = {}) {
   const port = await freePort()
   const base = `http://127.0.0.1:${port}`
-  const child = spawn(process.execPath, [`${process.env.EDDY_OUTPUT_DIR || '.output'}/server/index.mjs`], {
+  // BENCH_NODE_ARGS: options for the server's node, e.g. '--cpu-prof --cpu-prof-dir=/tmp/profiles'.
+  const nodeArgs = process.env.BENCH_NODE_ARGS?.split(/\s+/).filter(Boolean) ?? []
+  const child = spawn(process.execPath, [...nodeArgs, `${process.env.EDDY_OUTPUT_DIR || '.output'}/server/index.mjs`], {
     stdio: ['ignore', 'ignore', 'inherit'],
     env: {
       ...process.env,

@@ -44,22 +44,44 @@ export async function revokeSession(session: Partial<UserSession>) {
   await db.delete(tables.revokedSessions).where(lt(tables.revokedSessions.expiresAt, new Date()))
 }
 
+/** What new advice stands on: the published ruleset's head and the calibration version in force. */
+export type VersionsInForce = {
+  ruleset: { id: number; key: string; version: string } | null
+  calibration: number | null
+}
+
+type SessionQuery = ReturnType<typeof prepareSessionQuery>
+let sessionQuery: { db: ReturnType<typeof useDb>; query: SessionQuery } | undefined
+
+// Prepared once (a named statement, parsed once per connection): it runs on every signed-in request.
+// It also reads the versions advice depends on, two index lookups on small tables, so that the
+// advice route needs no query of its own (server/utils/advice/basis.ts).
+function prepareSessionQuery(db: ReturnType<typeof useDb>) {
+  const u = tables.users
+  return db.select({
+    id: u.id, email: u.email, name: u.name, role: u.role, active: u.active, sessionVersion: u.sessionVersion,
+    revoked: sql<boolean>`EXISTS (SELECT 1 FROM revoked_sessions r WHERE r.id = ${sql.placeholder('sessionId')})`,
+    rulesetInForce: sql<VersionsInForce['ruleset']>`(SELECT json_build_object('id', p.id, 'key', p.key, 'version', p.version) FROM rulesets p WHERE p.status = 'published')`,
+    calibrationInForce: sql<number | null>`(SELECT max(c.version) FROM calibration_adoptions c)`,
+  }).from(u).where(eq(u.id, sql.placeholder('id'))).prepare('session_user_and_versions')
+}
+
 /**
  * The user behind a session, or undefined when the session has ended: unknown or inactive user, an
- * older session version, or a revoked session id. One query per request.
+ * older session version, or a revoked session id. One query per request, which also reads the
+ * versions in force.
  */
 export async function findSessionUser(session: Partial<UserSession>) {
   const id = session.user?.id
   const sessionId = session.secure?.sessionId
   const version = session.secure?.sessionVersion
   if (!id || !sessionId || version === undefined) return undefined
-  const u = tables.users
-  const [row] = await useDb().select({
-    id: u.id, email: u.email, name: u.name, role: u.role, active: u.active, sessionVersion: u.sessionVersion,
-    revoked: sql<boolean>`EXISTS (SELECT 1 FROM revoked_sessions r WHERE r.id = ${sessionId})`,
-  }).from(u).where(eq(u.id, id))
+  const db = useDb()
+  if (sessionQuery?.db !== db) sessionQuery = { db, query: prepareSessionQuery(db) }
+  const [row] = await sessionQuery.query.execute({ id, sessionId })
   if (!row || !row.active || row.revoked || row.sessionVersion !== version) return undefined
-  return row
+  const inForce: VersionsInForce = { ruleset: row.rulesetInForce, calibration: row.calibrationInForce }
+  return { ...row, inForce }
 }
 
 /** Ends every session of the user, on every device. */

@@ -57,6 +57,11 @@ export async function publishedRuleset(db: DbOrTx = useDb()): Promise<Ruleset> {
   const [head] = await db.select({ id: rulesets.id, key: rulesets.key, version: rulesets.version })
     .from(rulesets).where(eq(rulesets.status, 'published'))
   if (!head) throw createError({ statusCode: 503, message: 'No ruleset is published; a team lead must publish one' })
+  return releaseOf(head, db)
+}
+
+/** A released version by its head (id, key, version): from memory once compiled, else read and compiled. */
+export async function releaseOf(head: { id: number; key: string; version: string }, db: DbOrTx = useDb()): Promise<Ruleset> {
   const cached = cachedRelease(head.key, head.version)
   if (cached) return cached
   const [row] = await db.select().from(rulesets).where(eq(rulesets.id, head.id))
