@@ -49,6 +49,9 @@ export NUXT_APP_URL="${NUXT_APP_URL:-http://127.0.0.1:$PORT}"
 log "Eddyledger at http://127.0.0.1:$PORT  ${MAIL_NOTE:-}  ${S3_NOTE:-}"
 log "demo sign-ins (password: $DEMO_PASSWORD): engineer@ engineer2@ reviewer@ reviewer2@ auditor@ lead@ admin@ eddyledger.test"
 # The server gets the app role's credentials only, never the owner's.
-env -u DATABASE_OWNER_URL HOST=127.0.0.1 PORT="$PORT" node "$EDDY_OUTPUT_DIR/server/index.mjs" &
+# Node's heap options as everywhere the server runs (package.json config.serverNodeArgs, see
+# scripts/lib/server-node.ts).
+# shellcheck disable=SC2046
+env -u DATABASE_OWNER_URL HOST=127.0.0.1 PORT="$PORT" node $(server_node_args) "$EDDY_OUTPUT_DIR/server/index.mjs" &
 pids+=($!)
 wait "${pids[-1]}"

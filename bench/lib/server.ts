@@ -4,6 +4,7 @@ import { spawn } from 'node:child_process'
 import { randomBytes } from 'node:crypto'
 import { readFileSync } from 'node:fs'
 import { createServer } from 'node:net'
+import { serverNodeArgs } from '../../scripts/lib/server-node'
 
 export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -21,8 +22,8 @@ export type RunningServer = Awaited<ReturnType<typeof startApp>>
 export async function startApp(databaseUrl: string, env: Record<string, string> = {}) {
   const port = await freePort()
   const base = `http://127.0.0.1:${port}`
-  // BENCH_NODE_ARGS: options for the server's node, e.g. '--cpu-prof --cpu-prof-dir=/tmp/profiles'.
-  const nodeArgs = process.env.BENCH_NODE_ARGS?.split(/\s+/).filter(Boolean) ?? []
+  // As deployed (scripts/lib/server-node.ts); BENCH_NODE_ARGS adds options, e.g. '--cpu-prof --cpu-prof-dir=/tmp/profiles'.
+  const nodeArgs = [...serverNodeArgs(), ...(process.env.BENCH_NODE_ARGS?.split(/\s+/).filter(Boolean) ?? [])]
   const child = spawn(process.execPath, [...nodeArgs, `${process.env.EDDY_OUTPUT_DIR || '.output'}/server/index.mjs`], {
     stdio: ['ignore', 'ignore', 'inherit'],
     env: {

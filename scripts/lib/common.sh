@@ -205,6 +205,11 @@ SLOT_SUFFIX="${EDDY_BUILD_SLOT:+-$EDDY_BUILD_SLOT}"
 export EDDY_OUTPUT_DIR=".output$SLOT_SUFFIX"
 
 # Build when sources are newer than the last build.
+# The built server's node options (package.json config.serverNodeArgs, see scripts/lib/server-node.ts).
+server_node_args() {
+  node -p "require('$ROOT/package.json').config.serverNodeArgs"
+}
+
 ensure_build() {
   if [ ! -f "$EDDY_OUTPUT_DIR/nitro.json" ] || [ -n "$(find app server shared content nuxt.config.ts package-lock.json -newer "$EDDY_OUTPUT_DIR/nitro.json" -print -quit 2>/dev/null)" ]; then
     log "building the app"

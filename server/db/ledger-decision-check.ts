@@ -4,6 +4,7 @@
 // only found by the ledger verification (ledger-verify.ts).
 import { asc, inArray, sql } from 'drizzle-orm'
 import { checkChain } from './event-chain'
+import { readAll } from './reads'
 import type { LedgerDbOrTx } from './ledger'
 import { RECORD_SOURCES, revisionHash } from './ledger-records'
 import type { LedgerProblem } from '../../shared/schemas/ledger'
@@ -48,13 +49,13 @@ async function checkChunk(db: LedgerDbOrTx, decisionIds: number[], revisionConte
   const e = schema.decisionEvents
   const r = schema.decisionRevisions
   const l = schema.ledgerEntries
-  const [events, revisions, entries, states] = await Promise.all([
-    db.select().from(e).where(inArray(e.decisionId, decisionIds)).orderBy(asc(e.decisionId), asc(e.seq)),
-    revisionContent
+  const [events, revisions, entries, states] = await readAll(db, [
+    () => db.select().from(e).where(inArray(e.decisionId, decisionIds)).orderBy(asc(e.decisionId), asc(e.seq)),
+    () => revisionContent
       ? db.select().from(r).where(inArray(r.decisionId, decisionIds))
       : db.select({ id: r.id, decisionId: r.decisionId, revision: r.revision }).from(r).where(inArray(r.decisionId, decisionIds)),
-    db.select().from(l).where(sql`${l.subjectType} = 'decision' AND ${l.subjectId} = ANY(${`{${decisionIds.map(String).join(',')}}`}::text[])`),
-    db.execute<{ decision_id: number; events: number; mismatch: string }>(
+    () => db.select().from(l).where(sql`${l.subjectType} = 'decision' AND ${l.subjectId} = ANY(${`{${decisionIds.map(String).join(',')}}`}::text[])`),
+    () => db.execute<{ decision_id: number; events: number; mismatch: string }>(
       // The function, not the view: it reads only these decisions' events (the view replays them all).
       sql`SELECT decision_id, events, mismatch FROM decision_state_check_of(${ids}::int[]) WHERE mismatch IS NOT NULL`),
   ])

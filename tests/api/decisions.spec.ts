@@ -54,6 +54,20 @@ describe('POST /api/advice', () => {
     expect(res.status).toBe(400)
     expect(Object.keys(res.body.data.fieldErrors)).toEqual(['caseInput'])
   })
+
+  it('answers a case sent again the same, and a bad body sent again with 400 again (answers kept by version)', async () => {
+    const body = { caseInput: { ...DUCT_CASE, velocity: 6.25 } }
+    const first = await engineer.post('/api/advice', body)
+    const again = await reviewer.post('/api/advice', body)
+    expect(first.status).toBe(200)
+    expect(first.headers.get('content-type')).toMatch(/^application\/json/)
+    expect(again.body).toEqual(first.body)
+    // The same case with its keys in another order is the same case.
+    const reordered = { caseInput: Object.fromEntries(Object.entries(body.caseInput).reverse()) }
+    expect((await engineer.post('/api/advice', reordered)).body).toEqual(first.body)
+    const bad = { caseInput: { ...DUCT_CASE, velocity: -1 } }
+    for (let i = 0; i < 2; i++) expect((await engineer.post('/api/advice', bad)).status).toBe(400)
+  })
 })
 
 describe('saving a decision', () => {

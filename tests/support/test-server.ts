@@ -8,6 +8,7 @@ import { migrate } from 'drizzle-orm/node-postgres/migrator'
 import pg from 'pg'
 import * as schema from '../../server/db/schema'
 import { seedDemo } from '../../server/db/seed-demo'
+import { serverNodeArgs } from '../../scripts/lib/server-node'
 
 export const DEMO_PASSWORD = process.env.DEMO_PASSWORD || 'ledger-demo-2026'
 
@@ -48,7 +49,7 @@ export async function startServer(options: { database: string; port: number; env
   // keepDatabase: a restart on the data a previous server left behind.
   const url = options.keepDatabase ? databaseUrl(options.database) : await freshDatabase(options.database)
   const base = `http://127.0.0.1:${options.port}`
-  const child = spawn(process.execPath, [`${process.env.EDDY_OUTPUT_DIR || '.output'}/server/index.mjs`], {
+  const child = spawn(process.execPath, [...serverNodeArgs(), `${process.env.EDDY_OUTPUT_DIR || '.output'}/server/index.mjs`], {
     stdio: ['ignore', 'inherit', 'inherit'],
     env: {
       ...process.env,

@@ -53,6 +53,16 @@ function csvLine(r: AuditRow, facts: ChainFacts, v: VerificationSummary) {
   ]
 }
 
+/** Waits until the stream takes more or is closed, leaving no listener behind either way. */
+async function drainedOrClosed(out: PassThrough) {
+  const done = new AbortController()
+  try {
+    await Promise.race([once(out, 'drain', { signal: done.signal }), once(out, 'close', { signal: done.signal })])
+  } finally {
+    done.abort()
+  }
+}
+
 /** Writes every row the filter selects to `out`, waiting whenever the client is slower than the database. */
 async function writeRows(tx: DbOrTx, filter: AuditFilter, out: PassThrough) {
   const where = await auditWhere(filter)
@@ -61,9 +71,11 @@ async function writeRows(tx: DbOrTx, filter: AuditFilter, out: PassThrough) {
     const rows = await auditRows(and(where, afterCursor(s.updatedAt, s.decisionId, cursor, 'desc')), tx).limit(BATCH)
     if (!rows.length) return
     const ids = rows.map(r => r.id)
-    const [facts, verification] = await Promise.all([chainFacts(tx, ids), verificationSummaries(ids, tx)])
+    // One connection in a transaction: the reads run in turn (server/db/reads.ts).
+    const facts = await chainFacts(tx, ids)
+    const verification = await verificationSummaries(ids, tx)
     const text = unparse(rows.map(r => csvLine(r, facts.get(r.id)!, verification.get(r.id)!)))
-    if (!out.write(text)) await Promise.race([once(out, 'drain'), once(out, 'close')])
+    if (!out.write(text)) await drainedOrClosed(out)
     const last = rows.at(-1)!
     cursor = { at: last.updatedAt, id: last.id }
     if (rows.length < BATCH) return

@@ -9,18 +9,27 @@ export function versionedCache<Value>(capacity: number) {
   return {
     /** The value for `key` under `version`, computed by `load` when not yet held. */
     get(version: string, key: string, load: () => Value): Value {
+      const held = this.peek(version, key)
+      if (held !== undefined) return held
+      const value = load()
+      this.put(version, key, value)
+      return value
+    },
+    /** The value when held (and then the most recently used), else undefined. */
+    peek(version: string, key: string): Value | undefined {
       const id = `${version}\u0000${key}`
       const held = entries.get(id)
-      if (held !== undefined) {
-        // Most recently used last.
-        entries.delete(id)
-        entries.set(id, held)
-        return held
-      }
-      const value = load()
+      if (held === undefined) return undefined
+      entries.delete(id)
+      entries.set(id, held)
+      return held
+    },
+    /** Holds a value computed elsewhere (an asynchronous load), the least recently used going first when full. */
+    put(version: string, key: string, value: Value) {
+      const id = `${version}\u0000${key}`
+      entries.delete(id)
       entries.set(id, value)
       if (entries.size > capacity) entries.delete(entries.keys().next().value!)
-      return value
     },
     /** Drops one entry (a load that failed, so the next request tries again). */
     forget(version: string, key: string) {

@@ -1,5 +1,6 @@
 import { asc, inArray } from 'drizzle-orm'
 import type { GridStudyResult, WallCheckResult } from '#shared/verification'
+import { readAll } from '../../db/reads'
 import type { DbOrTx } from '../../db/types'
 import { tables, useDb } from '../db'
 
@@ -25,10 +26,10 @@ export async function verificationSummaries(decisionIds: number[], db: DbOrTx = 
   const result = new Map<number, VerificationSummary>()
   for (const id of decisionIds) result.set(id, empty())
   if (!decisionIds.length) return result
-  const [checks, studies, runs] = await Promise.all([
-    db.select().from(tables.wallChecks).where(inArray(tables.wallChecks.decisionId, decisionIds)).orderBy(asc(tables.wallChecks.id)),
-    db.select().from(tables.gridStudies).where(inArray(tables.gridStudies.decisionId, decisionIds)).orderBy(asc(tables.gridStudies.id)),
-    db.select().from(tables.runRecords).where(inArray(tables.runRecords.decisionId, decisionIds)).orderBy(asc(tables.runRecords.id)),
+  const [checks, studies, runs] = await readAll(db, [
+    () => db.select().from(tables.wallChecks).where(inArray(tables.wallChecks.decisionId, decisionIds)).orderBy(asc(tables.wallChecks.id)),
+    () => db.select().from(tables.gridStudies).where(inArray(tables.gridStudies.decisionId, decisionIds)).orderBy(asc(tables.gridStudies.id)),
+    () => db.select().from(tables.runRecords).where(inArray(tables.runRecords.decisionId, decisionIds)).orderBy(asc(tables.runRecords.id)),
   ])
   for (const c of checks) {
     const s = result.get(c.decisionId)!

@@ -24,4 +24,17 @@ describe('versionedCache', () => {
     expect(cache.get('v', 'a', () => 'again')).toBe('A')
     expect(cache.get('v', 'b', () => 'B2')).toBe('B2')
   })
+
+  it('holds values put from an asynchronous load, and peeks without loading', () => {
+    const cache = versionedCache<string>(2)
+    expect(cache.peek('v', 'a')).toBeUndefined()
+    cache.put('v', 'a', 'A')
+    cache.put('v', 'b', 'B')
+    expect(cache.peek('v', 'a')).toBe('A')
+    // Peeking made "a" the most recently used: "b" goes first.
+    cache.put('v', 'c', 'C')
+    expect(cache.peek('v', 'b')).toBeUndefined()
+    expect(cache.peek('w', 'a')).toBeUndefined()
+    expect(cache.get('v', 'a', () => 'never')).toBe('A')
+  })
 })
