@@ -151,6 +151,10 @@ describe('GET /api/audit/decisions', () => {
     const byAuthor = await allAuditRows(auditor, 'q=lindqvist')
     expect(byAuthor.length).toBeGreaterThan(0)
     expect(byAuthor.every(r => r.author.name === 'Tomas Lindqvist')).toBe(true)
+    // A title naming the author too: found once, and counted once (allAuditRows checks the total).
+    const named = await createDraft(engineer, project['KB-101']!, { title: uniqueTitle('Riser as Lindqvist sketched it') })
+    const byEither = await allAuditRows(auditor, 'q=lindqvist')
+    expect(byEither.map(r => r.id).sort()).toEqual([...byAuthor.map(r => r.id), named.id].sort())
     // LIKE's wildcards are searched for as typed.
     expect(await allAuditRows(auditor, 'q=%25%25%25')).toEqual([])
     // The search narrows the filters, it does not replace them.

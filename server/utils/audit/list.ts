@@ -4,7 +4,7 @@ import { and, eq, ilike, or, sql, type SQL } from 'drizzle-orm'
 import type { AuditFilter, AuditListQuery } from '#shared/schemas/audit'
 import type { DbOrTx } from '../../db/types'
 import { LATEST_ACTIVITY, filteredSummaries, summaryRows, toSummary } from '../decisions/lists'
-import { afterCursor, countRows, keysetPage } from '../pagination/keyset'
+import { EXACT_COUNT_CAP, afterCursor, countRows, keysetPage } from '../pagination/keyset'
 import { tables, useDb } from '../db'
 import { chainFacts } from './chains'
 
@@ -13,26 +13,52 @@ const s = tables.decisionSummaries
 // Trigram indexes serve substrings of three characters or more.
 const MIN_TEXT_SEARCH = 3
 
-/** A decision number (#123 or 123), or words of the title or of the author's name. */
-async function searchCondition(q: string): Promise<SQL> {
+/**
+ * A decision number (#123 or 123), or words of the title or of the author's name: the ways a row can
+ * match, each served by an index of its own (none: nothing matches).
+ */
+async function searchAlternatives(q: string): Promise<SQL[]> {
   const number = /^#?(\d{1,9})$/.exec(q)
-  if (q.length < MIN_TEXT_SEARCH) return number ? eq(s.decisionId, Number(number[1])) : sql`false`
+  if (q.length < MIN_TEXT_SEARCH) return number ? [eq(s.decisionId, Number(number[1]))] : []
   const pattern = `%${q.replace(/[\\%_]/g, c => `\\${c}`)}%`
   // Authors first (a short table), so the search is an index lookup per part.
   const authors = await useDb().select({ id: tables.users.id }).from(tables.users).where(ilike(tables.users.name, pattern))
-  return or(
-    number ? eq(s.decisionId, Number(number[1])) : undefined,
+  return [
+    ...(number ? [eq(s.decisionId, Number(number[1]))] : []),
     ilike(s.title, pattern),
-    authors.length ? sql`${s.authorId} = ANY(${`{${authors.map(a => a.id).join(',')}}`}::int[])` : undefined,
-  )!
+    ...(authors.length ? [sql`${s.authorId} = ANY(${`{${authors.map(a => a.id).join(',')}}`}::int[])`] : []),
+  ]
 }
 
+type AuditConditions = { filters: SQL | undefined; alternatives?: SQL[] }
+
+async function auditConditions(filter: AuditFilter): Promise<AuditConditions> {
+  return {
+    filters: and(
+      filter.projectId ? eq(s.projectId, filter.projectId) : undefined,
+      filter.status ? eq(s.status, filter.status) : undefined,
+    ),
+    alternatives: filter.q ? await searchAlternatives(filter.q) : undefined,
+  }
+}
+
+const whereOf = ({ filters, alternatives }: AuditConditions) =>
+  and(filters, alternatives && (alternatives.length ? or(...alternatives) : sql`false`))
+
 export async function auditWhere(filter: AuditFilter) {
-  return and(
-    filter.projectId ? eq(s.projectId, filter.projectId) : undefined,
-    filter.status ? eq(s.status, filter.status) : undefined,
-    filter.q ? await searchCondition(filter.q) : undefined,
-  )
+  return whereOf(await auditConditions(filter))
+}
+
+/**
+ * What the count walks. A search counted in the list's order tests every row's title until the cap
+ * (an author's thousand decisions meant some 20,000 titles); counted as a union of its alternatives,
+ * each part is an index lookup, capped on its own (a union of capped parts reaches the cap exactly
+ * when the whole would).
+ */
+function countedRows({ filters, alternatives }: AuditConditions, where: SQL | undefined) {
+  if (!alternatives || alternatives.length < 2) return filteredSummaries(where, LATEST_ACTIVITY)
+  const part = (alternative: SQL) => useDb().select({ id: s.decisionId }).from(s).where(and(filters, alternative)).limit(EXACT_COUNT_CAP + 1)
+  return sql.join(alternatives.map(alternative => sql`(${part(alternative)})`), sql` UNION `)
 }
 
 /** The rows of the audit in its order (latest activity first), for a page or the export. */
@@ -41,10 +67,11 @@ export function auditRows(where: SQL | undefined, db: DbOrTx = useDb()) {
 }
 
 export async function listAuditDecisions(query: AuditListQuery) {
-  const where = await auditWhere(query)
+  const conditions = await auditConditions(query)
+  const where = whereOf(conditions)
   const [rows, totals] = await Promise.all([
     auditRows(and(where, afterCursor(s.updatedAt, s.decisionId, query.cursor, 'desc'))).limit(query.limit + 1),
-    countRows(useDb(), filteredSummaries(where, LATEST_ACTIVITY)),
+    countRows(useDb(), countedRows(conditions, where), EXACT_COUNT_CAP, filteredSummaries(where, LATEST_ACTIVITY)),
   ])
   const page = keysetPage(rows, query.limit, row => ({ at: row.updatedAt, id: row.id }))
   const facts = await chainFacts(useDb(), page.items.map(r => r.id))

@@ -24,12 +24,15 @@ export function keysetPage<Row>(rows: Row[], limit: number, key: (row: Row) => P
   return { items, nextCursor: more ? encodeCursor(key(items.at(-1)!)) : null }
 }
 
-/** How many rows `selection` (a query selecting the filtered rows, no order or limit) gives. */
-export async function countRows(db: DbOrTx, selection: SQLWrapper, cap = EXACT_COUNT_CAP): Promise<Pick<Page<never>, 'total' | 'totalIsEstimate'>> {
+/**
+ * How many rows `selection` (a query selecting the filtered rows, no order or limit) gives; past the
+ * cap, the planner's estimate for `estimated` (the same rows, when `selection` is capped in parts).
+ */
+export async function countRows(db: DbOrTx, selection: SQLWrapper, cap = EXACT_COUNT_CAP, estimated: SQLWrapper = selection): Promise<Pick<Page<never>, 'total' | 'totalIsEstimate'>> {
   const { rows } = await db.execute<{ n: number }>(sql`SELECT count(*)::int AS n FROM (${selection} LIMIT ${cap + 1}) AS counted`)
   const exact = rows[0]!.n
   if (exact <= cap) return { total: exact, totalIsEstimate: false }
-  const { rows: plan } = await db.execute<{ 'QUERY PLAN': [{ Plan: { 'Plan Rows': number } }] }>(sql`EXPLAIN (FORMAT JSON) ${selection}`)
+  const { rows: plan } = await db.execute<{ 'QUERY PLAN': [{ Plan: { 'Plan Rows': number } }] }>(sql`EXPLAIN (FORMAT JSON) ${estimated}`)
   const estimate = Math.round(plan[0]!['QUERY PLAN'][0].Plan['Plan Rows'])
   return { total: Math.max(estimate, cap + 1), totalIsEstimate: true }
 }
