@@ -27,7 +27,7 @@ import type { Ruleset } from './ruleset-schema'
 import { wallFigures } from './wall-figures'
 
 /** Semantic version of the engine's code (the ruleset has its own). */
-export const ENGINE_VERSION = '2.0.0'
+export const ENGINE_VERSION = '2.0.1'
 
 export interface AdviseOptions {
   /** The rules to apply (a team's published version, a draft under review); the built-in RULESET when absent. Compile it once with compileRuleset(). */

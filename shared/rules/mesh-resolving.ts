@@ -144,14 +144,16 @@ function externalWall(flow: CostCase): WallPart {
   const turbulent = turbulentPlateIntegral(flow)
   const start = Math.min(1, flow.turbulentStart)
   const startViscous = flow.wall.viscousLength * Math.sqrt(flatPlateSkinFriction(flow.reynolds) / flatPlateSkinFriction(flow.reynolds * start))
-  const turbulentFinest = start < 1 ? wallFinest(flow.wall.boundaryLayerThickness * start ** (6 / 7), startViscous, sharpEdgeFloor(flow)) : null
+  // Where the turbulent layer would start (the trailing edge while the whole plate is laminar), so
+  // the laminar part is meshed alike on either side of the onset: the count does not jump there.
+  const turbulentFinest = wallFinest(flow.wall.boundaryLayerThickness * start ** (6 / 7), startViscous, sharpEdgeFloor(flow))
   const laminarThickness = 5 * start * flow.length * (flow.reynolds * start) ** -0.5
   const cells = { dns: 0, wrles: 0, wmles: 0 }
   const finest = { dns: Infinity, wrles: Infinity, wmles: Infinity }
   for (const id of ['dns', 'wrles', 'wmles'] as const) {
-    const spacing = Math.max(laminarThickness / LAMINAR_LAYER_WALL_PARALLEL_PER_THICKNESS, turbulentFinest?.[id] ?? 0)
+    const spacing = Math.max(laminarThickness / LAMINAR_LAYER_WALL_PARALLEL_PER_THICKNESS, turbulentFinest[id])
     cells[id] = span * (turbulent[id] + (start * flow.length * LAMINAR_LAYER_CELLS_ACROSS) / (spacing * spacing))
-    finest[id] = turbulentFinest?.[id] ?? spacing
+    finest[id] = start < 1 ? turbulentFinest[id] : spacing
   }
   return { cells, finest }
 }

@@ -219,7 +219,7 @@ describe('the advice is explained and reproducible', () => {
     }
     expect(advice.ruleset).toEqual({ id: RULESET.id, version: RULESET.version })
     expect(advice.engineVersion).toBe(ENGINE_VERSION)
-    expect(ENGINE_VERSION).toBe('2.0.0')
+    expect(ENGINE_VERSION).toBe('2.0.1')
     expect(RULESET.version).toBe('2.0.0')
   })
 
@@ -266,6 +266,25 @@ describe('properties over valid cases (fast-check)', () => {
     expect(approach(turbulent, 'wmles').cells).toBeLessThan(approach(turbulent, 'wrles').cells)
   })
 
+  it('the wall-resolved count does not jump down where a plate\'s turbulent part begins (Re_x = 5e5 on the reference length; common practice, no source)', () => {
+    // Found by the property below: the laminar part ahead of the turbulent one was meshed at the
+    // turbulent wall's finest cell only once a turbulent part existed, so WRLES fell by 80% at the onset.
+    const plate: CaseInputDraft = {
+      regime: 'external', fluid: { medium: 'air', temperatureK: 200, pressurePa: 101_325 }, velocity: 1, length: 1,
+      turbulenceIntensity: 0.001, geometry: 'streamlined', separation: 'none',
+      physics: { transition: false, heatTransfer: false, rotation: false, buoyancy: false, acoustics: false },
+      quantities: ['forces'], budget: { coreHours: 10, cores: 1, wallClockHours: 1 },
+    }
+    // The velocity at which Re on the reference length is 5e5 (Re grows in proportion to it).
+    const onset = 5e5 / advise(plate).reynolds
+    const below = advise({ ...plate, velocity: onset * 0.99 })
+    const above = advise({ ...plate, velocity: onset * 1.01 })
+    expect(below.regime.boundaryLayer).toBe('transitional')
+    expect(above.regime.boundaryLayer).toBe('turbulent')
+    expect(approach(above, 'wrles').cells).toBeGreaterThanOrEqual(approach(below, 'wrles').cells)
+    expect(approach(above, 'dns').cells).toBeGreaterThan(approach(below, 'dns').cells)
+  })
+
   it('DNS, WRLES and WMLES cells grow with Re (the velocity) below Mach 0.3 (Choi & Moin 2012)', () => {
     fc.assert(
       fc.property(validCase, fc.double({ min: 1.1, max: 10, noNaN: true }), (input, factor) => {
@@ -281,9 +300,16 @@ describe('properties over valid cases (fast-check)', () => {
         // resolution until the layer turns turbulent, and drops to its wall-modelled count there:
         // it is compared only within one boundary-layer state.
         const sameLayer = slow.regime.boundaryLayer === fast.regime.boundaryLayer
-        for (const id of sameLayer ? ['dns', 'wrles', 'wmles'] as const : ['dns', 'wrles'] as const) {
-          // Where a count has reached its cap the two sides differ only by rounding (about 1e-9).
-          expect(approach(fast, id).cells).toBeGreaterThanOrEqual(approach(slow, id).cells * (1 - 1e-6))
+        // A separated shear layer starts as thick as the layer it leaves, and a laminar layer is far
+        // thinner than a turbulent one, so LES meshes a laminar separation finer: its region count
+        // drops where the layer leaves the laminar state (Schlichting, Boundary-Layer Theory; from memory).
+        const separationThickens = slow.regime.boundaryLayer === 'laminar' && fast.regime.boundaryLayer !== 'laminar'
+        const compared = sameLayer ? ['dns', 'wrles', 'wmles'] as const : separationThickens ? ['dns'] as const : ['dns', 'wrles'] as const
+        for (const id of compared) {
+          // Where a count has stopped depending on Re (a cap; the wall-modelled count of a fully rough
+          // wall) the two sides differ only by rounding and the quadrature's drift: under 1e-5 over a
+          // tenfold step, found by scanning (common practice, no source).
+          expect(approach(fast, id).cells).toBeGreaterThanOrEqual(approach(slow, id).cells * (1 - 1e-4))
         }
         expect(fast.kolmogorovCells).toBeGreaterThan(slow.kolmogorovCells)
       }),
