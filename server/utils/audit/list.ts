@@ -50,13 +50,13 @@ export async function auditWhere(filter: AuditFilter) {
 }
 
 /**
- * What the count walks. A search counted in the list's order tests every row's title until the cap
- * (an author's thousand decisions meant some 20,000 titles); counted as a union of its alternatives,
- * each part is an index lookup, capped on its own (a union of capped parts reaches the cap exactly
- * when the whole would).
+ * What the count of a search walks (undefined: the filtered rows themselves). A search counted in
+ * the list's order tests every row's title until the cap (an author's thousand decisions meant some
+ * 20,000 titles); counted as a union of its alternatives, each part is an index lookup, capped on
+ * its own (a union of capped parts reaches the cap exactly when the whole would).
  */
-function countedRows({ filters, alternatives }: AuditConditions, where: SQL | undefined) {
-  if (!alternatives || alternatives.length < 2) return filteredSummaries(where, LATEST_ACTIVITY)
+function searchCountedInParts({ filters, alternatives }: AuditConditions) {
+  if (!alternatives || alternatives.length < 2) return undefined
   const part = (alternative: SQL) => useDb().select({ id: s.decisionId }).from(s).where(and(filters, alternative)).limit(EXACT_COUNT_CAP + 1)
   return sql.join(alternatives.map(alternative => sql`(${part(alternative)})`), sql` UNION `)
 }
@@ -69,9 +69,10 @@ export function auditRows(where: SQL | undefined, db: DbOrTx = useDb()) {
 export async function listAuditDecisions(query: AuditListQuery) {
   const conditions = await auditConditions(query)
   const where = whereOf(conditions)
+  const filtered = filteredSummaries(where, LATEST_ACTIVITY)
   const [rows, totals] = await Promise.all([
     auditRows(and(where, afterCursor(s.updatedAt, s.decisionId, query.cursor, 'desc'))).limit(query.limit + 1),
-    countRows(useDb(), countedRows(conditions, where), EXACT_COUNT_CAP, filteredSummaries(where, LATEST_ACTIVITY)),
+    countRows(useDb(), searchCountedInParts(conditions) ?? filtered, EXACT_COUNT_CAP, filtered),
   ])
   const page = keysetPage(rows, query.limit, row => ({ at: row.updatedAt, id: row.id }))
   const facts = await chainFacts(useDb(), page.items.map(r => r.id))

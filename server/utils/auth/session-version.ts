@@ -50,8 +50,7 @@ export type VersionsInForce = {
   calibration: number | null
 }
 
-type SessionQuery = ReturnType<typeof prepareSessionQuery>
-let sessionQuery: { db: ReturnType<typeof useDb>; query: SessionQuery } | undefined
+let sessionQuery: { db: ReturnType<typeof useDb>; query: ReturnType<typeof prepareSessionQuery> } | undefined
 
 // Prepared once (a named statement, parsed once per connection): it runs on every signed-in request.
 // It also reads the versions advice depends on, two index lookups on small tables, so that the

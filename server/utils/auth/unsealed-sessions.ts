@@ -65,8 +65,3 @@ function sealExpiry(sealed: string): number {
   const expiration = sealed.split('*')[5]
   return expiration ? Number(expiration) : Infinity
 }
-
-/** For tests: how many opened cookies are held. */
-export function openedSessionCount() {
-  return held.size
-}
