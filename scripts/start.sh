@@ -6,6 +6,8 @@ source "$(dirname "$0")/lib/common.sh"
 PORT="${PORT:-3000}"
 PG_PORT="${PG_PORT:-54329}"
 S3_PORT="${S3_PORT:-4569}"
+MAIL_SMTP_PORT="${MAIL_SMTP_PORT:-1025}"
+MAIL_WEB_PORT="${MAIL_WEB_PORT:-1080}"
 ensure_apt_packages postgresql
 ensure_node_modules
 ensure_session_password
@@ -32,9 +34,11 @@ cleanup() {
 trap cleanup EXIT INT TERM
 
 if [ -z "${NUXT_SMTP_HOST:-}" ]; then
-  node_modules/.bin/maildev --ip 127.0.0.1 --smtp 1025 --web-ip 127.0.0.1 --web 1080 --silent >/tmp/eddyledger-maildev.log 2>&1 &
+  node_modules/.bin/maildev --ip 127.0.0.1 --smtp "$MAIL_SMTP_PORT" --web-ip 127.0.0.1 --web "$MAIL_WEB_PORT" --silent >/tmp/eddyledger-maildev.log 2>&1 &
   pids+=($!)
-  MAIL_NOTE="development inbox: http://127.0.0.1:1080"
+  wait_for_port "$MAIL_SMTP_PORT" "$!" "the mail catcher" /tmp/eddyledger-maildev.log
+  export NUXT_SMTP_PORT="$MAIL_SMTP_PORT"
+  MAIL_NOTE="development inbox: http://127.0.0.1:$MAIL_WEB_PORT"
 fi
 
 # Uploads: a real bucket when NUXT_STORAGE_BUCKET is set, else the local fake object store.

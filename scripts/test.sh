@@ -11,7 +11,8 @@ ensure_apt_packages postgresql chromium poppler-utils
 ensure_node_modules
 
 PG_DIR="$(pg_home ".pg-test$SLOT_SUFFIX")"
-PG_PORT="$(free_port)"
+# Every port the run's services listen on, chosen at once so no two are the same.
+read -r PG_PORT SMTP_PORT MAIL_WEB_PORT FREE_S3_PORT <<<"$(free_ports 4)"
 stop_cluster "$PG_DIR"; rm -rf "$PG_DIR"
 TEST_TMP="$(mktemp -d /tmp/eddyledger-test$SLOT_SUFFIX.XXXXXX)"
 pids=()
@@ -33,15 +34,17 @@ export NUXT_LEDGER_KEY_FILE="$TEST_TMP/ledger-signing-key" NUXT_LEDGER_KEYRING_F
 export TEST_TMP_DIR="$TEST_TMP" TEST_PG_BIN="$(pg_bin)"
 export DEMO_PASSWORD="${DEMO_PASSWORD:-$DEMO_PASSWORD_DEFAULT}"
 
-SMTP_PORT="$(free_port)"; MAIL_WEB_PORT="$(free_port)"
-node_modules/.bin/maildev --ip 127.0.0.1 --smtp "$SMTP_PORT" --web-ip 127.0.0.1 --web "$MAIL_WEB_PORT" --silent >/tmp/eddyledger-test-maildev.log 2>&1 &
+MAILDEV_LOG="$TEST_TMP/maildev.log"
+node_modules/.bin/maildev --ip 127.0.0.1 --smtp "$SMTP_PORT" --web-ip 127.0.0.1 --web "$MAIL_WEB_PORT" --silent >"$MAILDEV_LOG" 2>&1 &
 pids+=($!)
+wait_for_port "$SMTP_PORT" "$!" "the mail catcher (SMTP)" "$MAILDEV_LOG"
+wait_for_port "$MAIL_WEB_PORT" "$!" "the mail catcher (web)" "$MAILDEV_LOG"
 export TEST_SMTP_PORT="$SMTP_PORT" TEST_MAILDEV_URL="http://127.0.0.1:$MAIL_WEB_PORT"
 
 # A throwaway local object store on its own port (S3_PORT when set), removed after.
 S3_DIR="$ROOT/.s3-test$SLOT_SUFFIX"
 rm -rf "$S3_DIR"
-start_fake_s3 "$S3_DIR" "${S3_PORT:-$(free_port)}"
+start_fake_s3 "$S3_DIR" "${S3_PORT:-$FREE_S3_PORT}"
 pids+=("$FAKE_S3_PID")
 export TEST_S3_URL="$NUXT_STORAGE_ENDPOINT"
 

@@ -188,17 +188,31 @@ start_fake_s3() {
   node_modules/.bin/s3rver --directory "$dir" --address 127.0.0.1 --port "$port" --silent \
     --configure-bucket "$FAKE_S3_BUCKET" >"$dir.log" 2>&1 &
   local pid=$!
-  for _ in $(seq 1 100); do
-    if node -e "require('net').connect($port,'127.0.0.1').on('connect',()=>process.exit(0)).on('error',()=>process.exit(1))" 2>/dev/null; then break; fi
-    kill -0 "$pid" 2>/dev/null || { cat "$dir.log" >&2; echo "the local object store did not start" >&2; return 1; }
-    sleep 0.1
-  done
+  wait_for_port "$port" "$pid" "the local object store" "$dir.log" || return 1
   export NUXT_STORAGE_ENDPOINT="http://127.0.0.1:$port" NUXT_STORAGE_BUCKET="$FAKE_S3_BUCKET" NUXT_STORAGE_FORCE_PATH_STYLE=true \
     NUXT_STORAGE_ACCESS_KEY_ID=S3RVER NUXT_STORAGE_SECRET_ACCESS_KEY=S3RVER NUXT_STORAGE_REGION=us-east-1
   FAKE_S3_PID=$pid
 }
 
-free_port() { node -e "const s=require('net').createServer();s.listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"; }
+free_port() { free_ports 1; }
+# free_ports N: N distinct free ports on one line. They are held open together while chosen, so two
+# calls in a row cannot hand the same port to two services that have not bound it yet.
+free_ports() {
+  node -e "const net=require('net');const n=+process.argv[1];
+    Promise.all(Array.from({length:n},()=>new Promise(r=>{const s=net.createServer();s.listen(0,'127.0.0.1',()=>r(s))})))
+      .then(ss=>{console.log(ss.map(s=>s.address().port).join(' '));ss.forEach(s=>s.close())})" "$1"
+}
+
+# wait_for_port PORT PID WHAT LOG: waits until PORT accepts connections; fails if PID has exited.
+wait_for_port() {
+  local port="$1" pid="$2" what="$3" logfile="$4"
+  for _ in $(seq 1 150); do
+    if node -e "require('net').connect($port,'127.0.0.1').on('connect',()=>process.exit(0)).on('error',()=>process.exit(1))" 2>/dev/null; then return 0; fi
+    kill -0 "$pid" 2>/dev/null || { cat "$logfile" >&2; echo "$what did not start" >&2; return 1; }
+    sleep 0.1
+  done
+  echo "$what did not listen on port $port in 15 s" >&2; return 1
+}
 
 # EDDY_BUILD_SLOT=x keeps a parallel build and test cluster apart: .output-x, .nuxt-x, .pg-test-x.
 SLOT_SUFFIX="${EDDY_BUILD_SLOT:+-$EDDY_BUILD_SLOT}"

@@ -87,13 +87,24 @@ export async function startServer(options: { database: string; port: number; env
   }
 }
 
-export function freePort(): Promise<number> {
-  return import('node:net').then(net => new Promise((resolve, reject) => {
-    const server = net.createServer()
-    server.once('error', reject)
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as { port: number }
-      server.close(() => resolve(port))
+// Ports this test process has handed out: a port closed before its server binds it could be
+// handed out again, and two servers started from one test would then fight over it.
+const handedOut = new Set<number>()
+
+export async function freePort(): Promise<number> {
+  const net = await import('node:net')
+  for (;;) {
+    const port = await new Promise<number>((resolve, reject) => {
+      const server = net.createServer()
+      server.once('error', reject)
+      server.listen(0, '127.0.0.1', () => {
+        const { port } = server.address() as { port: number }
+        server.close(() => resolve(port))
+      })
     })
-  }))
+    if (!handedOut.has(port)) {
+      handedOut.add(port)
+      return port
+    }
+  }
 }
