@@ -71,15 +71,23 @@ test('QA opens the audit, verifies the chains on the page, follows a decision an
   expect(lines[0]).toBe(CSV_HEADER)
   expect(lines.length - 1).toBeGreaterThanOrEqual(count)
 
-  // The search narrows the list to the decisions whose number, title or author match.
+  // The search narrows the list to the decisions whose number, title or author match. It is kept in
+  // the address (wait for that before reading the rows), so the filtered audit survives a reload.
   const number = (await rows.nth(1).getAttribute('data-testid'))!.replace('audit-row-', '')
+  const authors = async () => new Set((await rows.locator('td:nth-child(4)').allTextContents()).map(t => t.trim()))
   await page.getByTestId('audit-search').fill(`#${number}`)
+  await expect(page).toHaveURL(new RegExp(`/audit\\?q=%23${number}$`))
+  await expect(rows).toHaveCount(1)
   await expect(page.getByTestId(`audit-row-${number}`)).toBeVisible()
-  await expect(page.getByTestId('page-position')).toContainText(/of \d+ decisions/)
+  await expect(page.getByTestId('page-position')).toContainText(/of 1 decision/)
   await page.getByTestId('audit-search').fill('Lindqvist')
-  await expect(rows.first()).toContainText('Tomas Lindqvist')
-  for (const text of await rows.locator('td:nth-child(4)').allTextContents()) expect(text.trim()).toBe('Tomas Lindqvist')
+  await expect(page).toHaveURL(/\/audit\?q=Lindqvist$/)
+  await expect.poll(authors).toEqual(new Set(['Tomas Lindqvist']))
+  await gotoHydrated(page, page.url())
+  await expect(page.getByTestId('audit-search')).toHaveValue('Lindqvist')
+  expect(await authors()).toEqual(new Set(['Tomas Lindqvist']))
   await page.getByTestId('audit-search').fill('')
+  await expect(page).toHaveURL(/\/audit$/)
   await expect(rows).toHaveCount(count)
 
   // Each row links to its decision page.
