@@ -1,6 +1,6 @@
 import { readFile } from 'node:fs/promises'
 import { expect, test } from '@playwright/test'
-import { gotoHydrated, keepScreenshot, signInAs } from '../support/e2e'
+import { gotoHydrated, keepScreenshot, signInAs, signOut } from '../support/e2e'
 
 const CSV_HEADER = 'project,decision,title,status,approach,model,wall treatment,engine recommended,author,reviewer,override reason,'
   + 'created,submitted,reviewed,last change,ruleset version,engine version,revisions,events,chain valid,chain broken at event,last hash,'
@@ -20,7 +20,7 @@ test('the team lead reads the overview: figures, the method chart, the project t
   await expect(page.getByTestId('figure-over-budget')).toHaveText(String(all.compute.overBudget))
   await expect(page.getByTestId('overview-method-chart').locator('canvas')).toBeVisible()
   await expect(page.getByTestId('overview-method-chart')).toHaveAttribute('aria-label', /Bar chart of decisions by the approach/)
-  await expect(page.getByTestId('overview-project-table').locator('tbody tr')).toHaveCount(all.compute.projects.length)
+  await expect(page.getByTestId('overview-project-table').locator('tbody tr')).toHaveCount(Math.min(15, all.compute.projects.length))
   await expect(page.getByTestId('overview-cautions')).toContainText(/order-of-magnitude/)
   await keepScreenshot(page, 'lead-overview')
 
@@ -28,9 +28,10 @@ test('the team lead reads the overview: figures, the method chart, the project t
   const codes = () => page.getByTestId('overview-project-table').locator('tbody tr td:first-child a').allTextContents()
   await page.getByTestId('overview-sort-code').click()
   const sorted = [...all.compute.projects.map((p: { code: string }) => p.code)].sort()
-  await expect.poll(codes).toEqual(sorted)
+  // The table shows the first 15 of the order (more on request, tested below).
+  await expect.poll(codes).toEqual(sorted.slice(0, 15))
   await page.getByTestId('overview-sort-code').click()
-  await expect.poll(codes).toEqual([...sorted].reverse())
+  await expect.poll(codes).toEqual([...sorted].reverse().slice(0, 15))
 
   // One project: the figures follow, and the address keeps the filter.
   const kb103 = all.compute.projects.find((p: { code: string }) => p.code === 'KB-103')
@@ -43,6 +44,36 @@ test('the team lead reads the overview: figures, the method chart, the project t
   await page.getByTestId('overview-from').fill('2001-01-01')
   await page.getByTestId('overview-to').fill('2001-01-31')
   await expect(page.getByTestId('overview-empty')).toBeVisible()
+})
+
+test('with many projects the overview lists the first 15 in the chosen order, and all on request', async ({ page }) => {
+  // More projects than the table shows at first, made by the administrator.
+  await signInAs(page, 'admin')
+  const existing = (await (await page.request.get('/api/projects')).json()).projects.length as number
+  for (let i = existing; i < 17; i++) {
+    const res = await page.request.post('/api/projects', { data: { code: `OV-${900 + i}`, name: `Overview paging study ${i}` } })
+    expect(res.status()).toBe(201)
+  }
+  await signOut(page)
+
+  await signInAs(page, 'lead')
+  await gotoHydrated(page, '/overview')
+  const all = (await (await page.request.get('/api/overview')).json()).compute.projects as { code: string }[]
+  expect(all.length).toBeGreaterThan(15)
+  const rows = page.getByTestId('overview-project-table').locator('tbody tr')
+  const codes = () => rows.locator('td:first-child a').allTextContents()
+  await expect(rows).toHaveCount(15)
+  await expect(page.getByTestId('overview-projects-shown')).toHaveText(`15 of ${all.length} projects, in the order chosen above`)
+
+  // Sorting orders every project, not only the rows shown.
+  await page.getByTestId('overview-sort-code').click()
+  const sorted = all.map(p => p.code).sort()
+  await expect.poll(codes).toEqual(sorted.slice(0, 15))
+  await page.getByTestId('overview-projects-toggle').click()
+  await expect(page.getByTestId('overview-projects-toggle')).toHaveAttribute('aria-expanded', 'true')
+  await expect.poll(codes).toEqual(sorted)
+  await page.getByTestId('overview-projects-toggle').click()
+  await expect(rows).toHaveCount(15)
 })
 
 test('QA opens the audit, verifies the chains on the page, follows a decision and downloads the CSV', async ({ page }) => {
