@@ -227,6 +227,8 @@ server_node_args() {
 ensure_build() {
   if [ ! -f "$EDDY_OUTPUT_DIR/nitro.json" ] || [ -n "$(find app server shared content nuxt.config.ts package-lock.json -newer "$EDDY_OUTPUT_DIR/nitro.json" -print -quit 2>/dev/null)" ]; then
     log "building the app"
+    # tsconfig.json points at .nuxt/, which a slot's build (.nuxt-<slot>) does not write: prepare it once.
+    if [ -n "$SLOT_SUFFIX" ] && [ ! -f .nuxt/tsconfig.app.json ]; then EDDY_BUILD_SLOT= npx nuxt prepare >/dev/null; fi
     npx nuxt build >/tmp/eddyledger-build$SLOT_SUFFIX.log 2>&1 || { tail -n 40 /tmp/eddyledger-build$SLOT_SUFFIX.log; exit 1; }
   fi
 }
