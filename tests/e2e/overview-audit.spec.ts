@@ -111,7 +111,13 @@ test('QA opens the audit, verifies the chains on the page, follows a decision an
   await expect(rows).toHaveCount(1)
   await expect(page.getByTestId(`audit-row-${number}`)).toBeVisible()
   await expect(page.getByTestId('page-position')).toContainText(/of 1 decision/)
+  // Too short to search: a hint, and the list unfiltered rather than an error.
+  await page.getByTestId('audit-search').fill('Li')
+  await expect(page.getByTestId('audit-search-hint')).toHaveText(/decision number, or at least 3 characters/)
+  await expect(page).toHaveURL(/\/audit$/)
+  await expect(rows).toHaveCount(count)
   await page.getByTestId('audit-search').fill('Lindqvist')
+  await expect(page.getByTestId('audit-search-hint')).toHaveCount(0)
   await expect(page).toHaveURL(/\/audit\?q=Lindqvist$/)
   await expect.poll(authors).toEqual(new Set(['Tomas Lindqvist']))
   await gotoHydrated(page, page.url())

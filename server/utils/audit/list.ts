@@ -2,6 +2,7 @@
 // check of its hash chain, a keyset page at a time, filtered and searched from the summaries.
 import { and, eq, ilike, or, sql, type SQL } from 'drizzle-orm'
 import type { AuditFilter, AuditListQuery } from '#shared/schemas/audit'
+import { AUDIT_MIN_TEXT_SEARCH, DECISION_NUMBER_SEARCH } from '#shared/utils/audit-search'
 import type { DbOrTx } from '../../db/types'
 import { LATEST_ACTIVITY, filteredSummaries, summaryRows, toSummary } from '../decisions/lists'
 import { EXACT_COUNT_CAP, afterCursor, countRows, keysetPage } from '../pagination/keyset'
@@ -11,15 +12,14 @@ import { chainFacts } from './chains'
 const s = tables.decisionSummaries
 
 // Trigram indexes serve substrings of three characters or more.
-const MIN_TEXT_SEARCH = 3
 
 /**
  * A decision number (#123 or 123), or words of the title or of the author's name: the ways a row can
  * match, each served by an index of its own (none: nothing matches).
  */
 async function searchAlternatives(q: string): Promise<SQL[]> {
-  const number = /^#?(\d{1,9})$/.exec(q)
-  if (q.length < MIN_TEXT_SEARCH) return number ? [eq(s.decisionId, Number(number[1]))] : []
+  const number = DECISION_NUMBER_SEARCH.exec(q)
+  if (q.length < AUDIT_MIN_TEXT_SEARCH) return number ? [eq(s.decisionId, Number(number[1]))] : []
   const pattern = `%${q.replace(/[\\%_]/g, c => `\\${c}`)}%`
   // Authors first (a short table), so the search is an index lookup per part.
   const authors = await useDb().select({ id: tables.users.id }).from(tables.users).where(ilike(tables.users.name, pattern))
